@@ -36,6 +36,8 @@ export interface TestMetadata {
   openHoleLength?: Metre;
   /** Fluid volume under compression, m3. */
   systemVolume?: CubicMetre;
+  /** Volume of the surface lines between pump and wellhead, m3 (added to the hole volume). */
+  surfaceLineVolume?: CubicMetre;
   /** Effective compressibility of that volume, 1/Pa. */
   compressibility?: PerPascal;
   /** Mud type as written (water-based, oil-based ...). */
@@ -103,10 +105,12 @@ export interface DepthLog {
   /** Index depth, m (MD or TVD as the file says; `indexKind`). */
   depth: Float64Array;
   indexKind: 'md' | 'tvd' | 'unknown';
-  curves: Record<string, { unit: string; values: Float64Array; description?: string }>;
+  curves: Record<string, { unit: string; values: Float64Array; description?: string; unitWritten?: string }>;
   well?: string;
   nullValue?: number;
   fileName: string;
+  /** Warnings found while reading that did not stop the import. */
+  warnings?: string[];
 }
 
 /** Number of samples in a record. */
