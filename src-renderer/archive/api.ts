@@ -1,5 +1,6 @@
 import type { AnalysisResult, Grade, Pick, PickKind } from '../engine/result';
-import type { TestMetadata, TestType } from '../engine/record';
+import type { ColumnMapping, TestMetadata, TestType } from '../engine/record';
+import type { UnitSystem } from '../engine/units/unitSystem';
 import type { ArchiveEvent, ReviewState } from './events';
 
 /**
@@ -63,4 +64,126 @@ export interface ImportOutcome {
 export interface ArchiveQuery {
   fieldId?: string; wellSearch?: string; type?: TestType; grade?: Grade; state?: ReviewState;
   sortBy?: keyof TestSummary; descending?: boolean;
+}
+
+// ---------------------------------------------------------------------------
+// Service interface (added with the Dexie implementation in archive/archive.ts).
+// ---------------------------------------------------------------------------
+
+/** A file handed to the archive for import: the bridge's PickedFile has this shape. */
+export interface ImportFileInput {
+  name: string;
+  /** Path inside a picked folder, or the file name. */
+  relativePath?: string;
+  bytes: Uint8Array;
+}
+
+/** Options of one import run; applied to every file of the run. */
+export interface ImportOptions {
+  /** Test type to use instead of the inferred one. */
+  type?: TestType;
+  /** Metadata that wins over the file's own (e.g. well or depth typed in by the user). */
+  overrides?: Partial<TestMetadata>;
+  /** Field name used when the file names none (default "Unassigned field"). */
+  defaultFieldName?: string;
+  /** Well name used when the file names none (default: the file name without extension). */
+  defaultWellName?: string;
+  /** Passed unchanged to the engine's file importer (column mapping confirmed by the user ...). */
+  parseOptions?: Record<string, unknown>;
+  /** Called after each file with the count done so far. */
+  onProgress?: (done: number, total: number, fileName: string) => void;
+}
+
+/** Number of tests in each review state (for the list's tabs). */
+export interface StateCounts {
+  imported: number;
+  'in-review': number;
+  accepted: number;
+  rejected: number;
+  total: number;
+}
+
+export interface UserRow { name: string; createdAt: string }
+
+/** A column mapping confirmed by a user, remembered per contractor layout signature. */
+export interface SavedMapping {
+  /** Layout signature (RecordSource.layout). */
+  layout: string;
+  columns: ColumnMapping[];
+  contractor?: string;
+  savedBy: string;
+  savedAt: string;
+}
+
+/** Project settings kept in the archive. */
+export interface ArchiveSettings {
+  /** Quality criteria limits overriding the engine defaults, by limit key. */
+  limits: Record<string, number>;
+  unitSystem: UnitSystem;
+}
+
+/** Stable codes of the archive's typed errors (ArchiveError in archive/errors.ts). Add, never rename. */
+export type ArchiveErrorCode =
+  | 'not-found'
+  | 'four-eyes'
+  | 'reason-required'
+  | 'bad-state'
+  | 'bad-user'
+  | 'bad-argument'
+  | 'bad-backup'
+  | 'backup-version';
+
+/**
+ * Everything the screens ask of the archive. Implemented by `Archive` (archive/archive.ts)
+ * over Dexie. Every mutating call appends events to the review log; nothing updates or
+ * deletes an event. Errors are `ArchiveError` (code above) or, for unreadable files inside
+ * `importFiles`, reported per file in the outcome.
+ */
+export interface ArchiveService {
+  /** Summaries matching the query, sorted; never loads samples. */
+  listTests(query?: ArchiveQuery): Promise<TestSummary[]>;
+  /** Number of tests per review state, with the same filters as listTests (state ignored). */
+  countByState(query?: ArchiveQuery): Promise<StateCounts>;
+  /** A test with samples, re-analysed with its manual picks and the project limits. */
+  getTest(testId: string): Promise<TestDetail>;
+  listFields(): Promise<FieldRow[]>;
+  listWells(fieldId?: string): Promise<WellRow[]>;
+  /** Replace a well's directional survey (MD m, inclination and azimuth in degrees). */
+  setWellSurvey(wellId: string, stations: { md: number; inc: number; azi: number }[], user: string, sourceFile?: string): Promise<WellRow>;
+  /** Import files: each enters whole (one transaction) or not at all; one outcome per file, in order. */
+  importFiles(files: ImportFileInput[], user: string, options?: ImportOptions): Promise<ImportOutcome[]>;
+  /** Set (pick) or remove (null) a pick by hand. On an accepted or rejected test this reopens the review. */
+  movePick(testId: string, cycle: number, kind: PickKind, pick: Pick | null, reason: string, user: string): Promise<TestDetail>;
+  /** Drop every manual pick of a test (back to the automatic picks). Reopens an accepted test. */
+  resetPicks(testId: string, reason: string, user: string): Promise<TestDetail>;
+  requestReview(testId: string, user: string, note?: string): Promise<TestSummary>;
+  /** Accept a test in review. Refused (code 'four-eyes') when `user` last changed the picks, or imported it and nobody did. */
+  signOff(testId: string, user: string, note?: string): Promise<TestSummary>;
+  /** Reject a test; a reason is required (code 'reason-required'). */
+  reject(testId: string, user: string, reason: string): Promise<TestSummary>;
+  /** Put an accepted or rejected test back in review; a reason is required. */
+  reopen(testId: string, user: string, reason: string): Promise<TestSummary>;
+  comment(testId: string, user: string, text: string): Promise<void>;
+  /** The test's review log, oldest first. */
+  eventsForTest(testId: string): Promise<ArchiveEvent[]>;
+  /** The whole log in Lamport order (for the team journal). */
+  listEvents(afterClock?: number): Promise<ArchiveEvent[]>;
+  listUsers(): Promise<UserRow[]>;
+  addUser(name: string): Promise<UserRow>;
+  saveMapping(mapping: Omit<SavedMapping, 'savedAt'>): Promise<SavedMapping>;
+  getMapping(layout: string): Promise<SavedMapping | null>;
+  getSettings(): Promise<ArchiveSettings>;
+  /** Replace the project limits (logged with a reason). Summaries are re-graded lazily by getTest, or all at once by regradeAll. */
+  setLimits(limits: Record<string, number>, user: string, reason: string): Promise<ArchiveSettings>;
+  setUnitSystem(unitSystem: UnitSystem): Promise<ArchiveSettings>;
+  /** Re-run the analysis of every test with the current limits; returns the number of summaries whose grade changed. */
+  regradeAll(onProgress?: (done: number, total: number) => void): Promise<number>;
+  /** True when the archive holds no test (the app seeds the demo archive then). */
+  isEmpty(): Promise<boolean>;
+  /** The whole archive as one file (see archive/backup.ts for the format). */
+  exportBackup(): Promise<Uint8Array>;
+  /** Replace the whole archive with a backup made by exportBackup. */
+  restoreBackup(bytes: Uint8Array): Promise<void>;
+  /** Called after every change to the archive; returns an unsubscribe function. */
+  subscribe(listener: () => void): () => void;
 }

@@ -23,6 +23,18 @@ export interface EventEnvelope {
   clock: number;
   /** SHA-256 (hex) of the previous event in the same journal; '' for the first. */
   prev: string;
+  /**
+   * Position in its own journal, 1-based (added for the team journal; see
+   * archive/journal/causality.ts). Absent on events written before journals existed.
+   */
+  seq?: number;
+  /**
+   * Causal history: for every other journal (`author@device`), the highest `seq` of that
+   * journal this device had seen when the event was made. An event B saw event A iff
+   * A is earlier in B's own journal or `B.seen[journal(A)] >= A.seq`. Absent on events made
+   * before team journals existed (their order is then the Lamport clock's).
+   */
+  seen?: Record<string, number>;
 }
 
 export type ArchiveEventBody =
@@ -49,6 +61,11 @@ export type ArchiveEventBody =
   | { kind: 'rejected'; testId: string; reason: string }
   | { kind: 'review-reopened'; testId: string; reason: string }
   | { kind: 'comment'; testId: string; text: string }
-  | { kind: 'test-deleted'; testId: string; reason: string };
+  | { kind: 'test-deleted'; testId: string; reason: string }
+  /**
+   * A person's decision on a conflict found by the merge (archive/journal/conflicts.ts):
+   * `keep` is the id of the event whose outcome stands.
+   */
+  | { kind: 'conflict-resolved'; conflictId: string; testId: string; keep: string; reason: string };
 
 export type ArchiveEvent = EventEnvelope & { body: ArchiveEventBody };
