@@ -23,7 +23,11 @@ export type EngineErrorCode =
   | 'bad-survey'
   | 'too-few-points'
   | 'singular-matrix'
-  | 'file-not-found';
+  | 'file-not-found'
+  /** An unexpected failure inside the program (a defect to report), not a problem of the input. */
+  | 'internal-error'
+  /** A team bundle that fails its checksum or structure check (archive/journal/bundle.ts). */
+  | 'bad-bundle';
 
 /** Where in a source file an error was found. Lines and columns count from 1. */
 export interface SourceLocation {

@@ -1,0 +1,2 @@
+/** Alias module of import-test-file.ts (both spellings are imported across the code base). */
+export * from './import-test-file';
