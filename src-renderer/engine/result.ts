@@ -168,6 +168,8 @@ export interface QualityResult {
 export interface AnalysisResult {
   type: TestType;
   typeInferred: boolean;
+  /** Why the record looks like its inferred type (also given when the type was stated). */
+  typeReasons: string[];
   samples: number;
   /** Metadata after command-line overrides were applied. */
   metadata: TestMetadata;
@@ -179,4 +181,23 @@ export interface AnalysisResult {
   stress: StressEstimates;
   quality: QualityResult;
   warnings: string[];
+}
+
+/**
+ * What the pipeline knows before stresses and quality are computed: the input to
+ * `estimateStresses` (stress/) and `assessQuality` (quality/).
+ */
+export interface AnalysisContext {
+  type: TestType;
+  typeInferred: boolean;
+  /** The record as imported (gauge pressure, rate, volume, SI). */
+  time: Float64Array;
+  rate: Float64Array;
+  volume: Float64Array;
+  /** Gauge pressure as recorded, Pa (for the gauge-range criterion). */
+  gaugePressure: Float64Array;
+  /** Downhole pressure at the tested depth, Pa. */
+  downholePressure: Float64Array;
+  metadata: TestMetadata;
+  cycles: CycleAnalysis[];
 }
