@@ -11,12 +11,20 @@ export const CHANNELS = {
   readDroppedFiles: 'bridge:read-dropped-files',
   recentFiles: 'bridge:recent-files',
   appVersion: 'bridge:app-version',
+  chooseTeamFolder: 'bridge:choose-team-folder',
+  connectTeamFolder: 'bridge:connect-team-folder',
+  pushTeamEvents: 'bridge:push-team-events',
+  readTeamChanges: 'bridge:read-team-changes',
+  writeTeamRaw: 'bridge:write-team-raw',
+  readTeamRaw: 'bridge:read-team-raw',
+  teamFolderStatus: 'bridge:team-folder-status',
 } as const;
 
 /** Messages the main process sends to the renderer. */
 export const EVENTS = {
   menuCommand: 'shell:menu-command',
   filesOpened: 'shell:files-opened',
+  teamFolderChanged: 'shell:team-folder-changed',
 } as const;
 
 export type InvokeChannel = (typeof CHANNELS)[keyof typeof CHANNELS];

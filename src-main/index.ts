@@ -84,7 +84,8 @@ app.whenReady().then(async () => {
   session.defaultSession.setPermissionCheckHandler(() => false);
   enforceContentSecurityPolicy(developmentUrl ? DEVELOPMENT_CONTENT_SECURITY_POLICY : CONTENT_SECURITY_POLICY);
   handleAppScheme(rendererDirectory);
-  registerIpcHandlers({ store, refreshMenu, developmentOrigin: developmentUrl });
+  const { teamFolder } = registerIpcHandlers({ store, refreshMenu, developmentOrigin: developmentUrl });
+  app.on('before-quit', () => teamFolder.close());
   refreshMenu();
   mainWindow = createMainWindow({ preloadPath, startUrl: developmentUrl ?? APP_START_URL, store, developmentOrigin: developmentUrl });
   mainWindow.on('closed', () => { mainWindow = null; });

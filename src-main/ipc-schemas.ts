@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { CHANNELS } from './channels';
+import { validateEventShape } from '../src-renderer/archive/journal/validate';
 
 /**
  * The payload every IPC handler accepts, validated in the main process before anything
@@ -46,6 +47,38 @@ export const readDroppedFilesPayload = z.object({
 
 export const noPayload = z.undefined();
 
+/** Most events one push may carry. */
+export const MAXIMUM_PUSHED_EVENTS = 200_000;
+
+const absolutePath = z.string().min(1).max(4096).refine((p) => !p.includes('\u0000'), 'a path without NUL')
+  .refine((p) => p.startsWith('/') || /^[A-Za-z]:[\\/]/.test(p) || p.startsWith('\\\\'), 'an absolute path');
+
+/** A user name or device id as the journal names them: trimmed, printable, short. */
+const journalName = z.string().min(1).max(200)
+  // eslint-disable-next-line no-control-regex
+  .refine((v) => v.trim() === v && !/[\u0000-\u001f\u007f]/.test(v), 'a name without control characters or outer spaces');
+
+const sha256Hash = z.string().regex(/^[0-9a-f]{64}$/, 'a SHA-256 hash (64 lower-case hex digits)');
+
+export const connectTeamFolderPayload = z.object({ folder: absolutePath, author: journalName, device: journalName }).strict();
+
+/** Events to write: each must have the review log's shape (archive/journal/validate.ts). */
+export const pushTeamEventsPayload = z.object({
+  events: z.array(z.unknown()).max(MAXIMUM_PUSHED_EVENTS).superRefine((events, context) => {
+    for (let i = 0; i < events.length; i++) {
+      const problem = validateEventShape(events[i]);
+      if (problem) { context.addIssue({ code: 'custom', path: [i], message: `not a review-log event (${problem})` }); return; }
+    }
+  }),
+}).strict();
+
+export const writeTeamRawPayload = z.object({
+  hash: sha256Hash,
+  bytes: z.instanceof(Uint8Array).refine((b) => b.byteLength <= MAXIMUM_FILE_BYTES, `at most ${MAXIMUM_FILE_BYTES} bytes`),
+}).strict();
+
+export const readTeamRawPayload = z.object({ hash: sha256Hash }).strict();
+
 /** Schema of each invoke channel's payload. */
 export const PAYLOAD_SCHEMAS = {
   [CHANNELS.openFiles]: openFilesPayload,
@@ -55,6 +88,13 @@ export const PAYLOAD_SCHEMAS = {
   [CHANNELS.readDroppedFiles]: readDroppedFilesPayload,
   [CHANNELS.recentFiles]: noPayload,
   [CHANNELS.appVersion]: noPayload,
+  [CHANNELS.chooseTeamFolder]: noPayload,
+  [CHANNELS.connectTeamFolder]: connectTeamFolderPayload,
+  [CHANNELS.pushTeamEvents]: pushTeamEventsPayload,
+  [CHANNELS.readTeamChanges]: noPayload,
+  [CHANNELS.writeTeamRaw]: writeTeamRawPayload,
+  [CHANNELS.readTeamRaw]: readTeamRawPayload,
+  [CHANNELS.teamFolderStatus]: noPayload,
 } as const;
 
 export type PayloadOf<C extends keyof typeof PAYLOAD_SCHEMAS> = z.infer<(typeof PAYLOAD_SCHEMAS)[C]>;

@@ -1,12 +1,14 @@
 import { app, BrowserWindow, dialog, ipcMain, type IpcMainInvokeEvent } from 'electron';
 import { writeFile } from 'node:fs/promises';
 import path from 'node:path';
-import { CHANNELS } from './channels';
+import { CHANNELS, EVENTS } from './channels';
 import { isAppUrl } from './app-scheme';
 import { parsePayload, PAYLOAD_SCHEMAS, type PayloadOf } from './ipc-schemas';
 import { IMPORTABLE_EXTENSIONS, readChosenPaths } from './files';
 import type { ShellStateStore } from './shell-state';
+import { TeamFolderHost } from './team-folder-host';
 import type { PickedFile } from '../src-renderer/bridge/types';
+import type { ArchiveEvent } from '../src-renderer/archive/events';
 
 type Channel = keyof typeof PAYLOAD_SCHEMAS;
 
@@ -16,13 +18,15 @@ export interface IpcContext {
   refreshMenu(): void;
   /** Origin of the development server, when running under it. */
   developmentOrigin?: string;
+  /** The team folder connection (default: one whose notices go to every window). */
+  teamFolder?: TeamFolderHost;
 }
 
 /**
  * Register one handler per bridge function. Each refuses a sender frame that is not the
  * app's own page, then validates its payload with zod before doing anything.
  */
-export function registerIpcHandlers(context: IpcContext): void {
+export function registerIpcHandlers(context: IpcContext): { teamFolder: TeamFolderHost } {
   const handle = <C extends Channel>(channel: C, work: (payload: PayloadOf<C>, window: BrowserWindow) => Promise<unknown>) => {
     ipcMain.handle(channel, async (event: IpcMainInvokeEvent, payload: unknown) => {
       if (!isAppUrl(event.senderFrame?.url, context.developmentOrigin)) {
@@ -89,6 +93,23 @@ export function registerIpcHandlers(context: IpcContext): void {
 
   handle(CHANNELS.recentFiles, async () => context.store.current().recentFiles);
   handle(CHANNELS.appVersion, async () => app.getVersion());
+
+  const teamFolder = context.teamFolder ?? new TeamFolderHost({
+    notify: (notice) => { for (const window of BrowserWindow.getAllWindows()) window.webContents.send(EVENTS.teamFolderChanged, notice); },
+  });
+
+  handle(CHANNELS.chooseTeamFolder, async (_payload, window) => {
+    const result = await dialog.showOpenDialog(window, { title: 'Choose the team folder', properties: ['openDirectory', 'createDirectory'] });
+    return result.canceled || result.filePaths.length === 0 ? null : result.filePaths[0];
+  });
+  handle(CHANNELS.connectTeamFolder, async (payload) => teamFolder.connect(payload));
+  // Each event's shape was checked by the payload schema (journal/validate.ts).
+  handle(CHANNELS.pushTeamEvents, async (payload) => teamFolder.push(payload.events as ArchiveEvent[]));
+  handle(CHANNELS.readTeamChanges, async () => teamFolder.readChanges());
+  handle(CHANNELS.writeTeamRaw, async (payload) => teamFolder.writeRaw(payload.hash, payload.bytes));
+  handle(CHANNELS.readTeamRaw, async (payload) => teamFolder.readRaw(payload.hash));
+  handle(CHANNELS.teamFolderStatus, async () => teamFolder.status());
+  return { teamFolder };
 }
 
 /** Read files for a recent-list entry and hand them to the window's app. */

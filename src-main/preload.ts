@@ -1,7 +1,7 @@
 /// <reference lib="dom" />
 import { contextBridge, ipcRenderer, webUtils } from 'electron';
 import { CHANNELS, EVENTS } from './channels';
-import type { MenuCommand, PickedFile, StressLedgerBridge } from '../src-renderer/bridge/types';
+import type { MenuCommand, PickedFile, StressLedgerBridge, TeamFolderBridge, TeamFolderNotice } from '../src-renderer/bridge/types';
 
 /**
  * The preload: exposes `window.stressLedger`, one named function per IPC message. The page
@@ -14,6 +14,8 @@ const MENU_COMMANDS: readonly MenuCommand[] = [
 ];
 
 const menuListeners = new Set<(command: MenuCommand) => void>();
+const teamListeners = new Set<(notice: TeamFolderNotice) => void>();
+const TEAM_NOTICE_KINDS = ['journals-changed', 'reachability', 'written', 'error'];
 const fileListeners = new Set<(files: PickedFile[]) => void>();
 
 function isEditable(element: Element | null): boolean {
@@ -41,6 +43,11 @@ ipcRenderer.on(EVENTS.filesOpened, (_event, files: unknown) => {
   if (Array.isArray(files)) deliverFiles(files as PickedFile[]);
 });
 
+ipcRenderer.on(EVENTS.teamFolderChanged, (_event, notice: unknown) => {
+  if (!notice || typeof notice !== 'object' || !TEAM_NOTICE_KINDS.includes((notice as { kind?: string }).kind ?? '')) return;
+  for (const listener of teamListeners) listener(notice as TeamFolderNotice);
+});
+
 window.addEventListener('dragover', (event) => {
   if (event.dataTransfer?.types.includes('Files')) { event.preventDefault(); event.dataTransfer.dropEffect = 'copy'; }
 });
@@ -52,6 +59,20 @@ window.addEventListener('drop', (event) => {
   if (paths.length === 0) return;
   void (ipcRenderer.invoke(CHANNELS.readDroppedFiles, { paths }) as Promise<PickedFile[]>).then(deliverFiles);
 });
+
+const teamFolder: TeamFolderBridge = {
+  chooseTeamFolder: () => ipcRenderer.invoke(CHANNELS.chooseTeamFolder),
+  connectTeamFolder: ({ folder, author, device }) => ipcRenderer.invoke(CHANNELS.connectTeamFolder, { folder, author, device }),
+  pushTeamEvents: (events) => ipcRenderer.invoke(CHANNELS.pushTeamEvents, { events }),
+  readTeamChanges: () => ipcRenderer.invoke(CHANNELS.readTeamChanges),
+  writeTeamRaw: (hash, bytes) => ipcRenderer.invoke(CHANNELS.writeTeamRaw, { hash, bytes }),
+  readTeamRaw: (hash) => ipcRenderer.invoke(CHANNELS.readTeamRaw, { hash }),
+  teamFolderStatus: () => ipcRenderer.invoke(CHANNELS.teamFolderStatus),
+  onTeamFolderChanged(listener) {
+    teamListeners.add(listener);
+    return () => { teamListeners.delete(listener); };
+  },
+};
 
 const bridge: StressLedgerBridge = {
   platform: 'electron',
@@ -69,6 +90,7 @@ const bridge: StressLedgerBridge = {
   },
   recentFiles: () => ipcRenderer.invoke(CHANNELS.recentFiles),
   appVersion: () => ipcRenderer.invoke(CHANNELS.appVersion),
+  teamFolder,
 };
 
 contextBridge.exposeInMainWorld('stressLedger', bridge);

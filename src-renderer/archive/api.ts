@@ -2,6 +2,8 @@ import type { AnalysisResult, Grade, Pick, PickKind } from '../engine/result';
 import type { ColumnMapping, TestMetadata, TestType } from '../engine/record';
 import type { UnitSystem } from '../engine/units/unitSystem';
 import type { ArchiveEvent, ReviewState } from './events';
+import type { Conflict, Finding } from './journal/derived-types';
+import type { SyncStatus } from './journal/sync-status';
 
 /**
  * What the app asks of the archive. The Dexie implementation lives in this folder;
@@ -35,6 +37,8 @@ export interface TestSummary {
   fileName: string; fileHash: string;
   importedAt: string; importedBy: string;
   contractor?: string;
+  /** Ids of unresolved team conflicts on this test (added with the team journal; absent when none). */
+  openConflicts?: string[];
 }
 
 export interface StoredSamples {
@@ -186,4 +190,71 @@ export interface ArchiveService {
   restoreBackup(bytes: Uint8Array): Promise<void>;
   /** Called after every change to the archive; returns an unsubscribe function. */
   subscribe(listener: () => void): () => void;
+}
+
+// ---------------------------------------------------------------------------
+// Team journal (added with the shared folder and bundles; see archive/journal/index.ts).
+// ---------------------------------------------------------------------------
+
+/** Something noticed while taking in team changes that is neither a conflict nor a finding. */
+export interface TeamIssue {
+  /** e.g. 'torn-tail', 'chain-broken' (journal damage), 'id-collision', 'bad-event', 'raw-damaged', 'raw-unreadable'. */
+  kind: string;
+  message: string;
+  file?: string;
+  line?: number;
+  column?: number;
+}
+
+/** A test whose import is known but whose raw file is not here yet (its samples cannot be built). */
+export interface MissingRawFile { testId: string; fileHash: string; fileName: string }
+
+/** What applying team changes (a bundle, the team folder) did. */
+export interface ApplyOutcome {
+  /** Events new to this archive. */
+  added: number;
+  /** Copies of events already held. */
+  duplicates: number;
+  /** Unresolved conflicts that involve an added event. */
+  conflicts: TeamConflict[];
+  /** Findings (four eyes, unknown test, ...) about added events. */
+  findings: Finding[];
+  issues: TeamIssue[];
+  missingRawFiles: MissingRawFile[];
+}
+
+/** One event of a conflict, in plain words. */
+export interface ConflictEventLine { id: string; author: string; device: string; time: string; kind: string; summary: string }
+
+/** A conflict with its events described, for the conflict list. */
+export interface TeamConflict extends Conflict { events: ConflictEventLine[] }
+
+/**
+ * The archive with team sharing: everything of ArchiveService, plus taking in events of
+ * other people (bundles, the team folder), conflicts and their decisions, and the sync
+ * status. Implemented by `Archive` (archive/archive.ts).
+ */
+export interface TeamArchiveService extends ArchiveService {
+  /** This installation's device id. */
+  deviceId(): string;
+  /** Merge events from elsewhere and rebuild the affected tests; raw files by SHA-256 build samples of newly known tests. */
+  applyEvents(incoming: readonly ArchiveEvent[], rawFiles?: ReadonlyMap<string, Uint8Array>): Promise<ApplyOutcome>;
+  /** Conflicts, oldest first: unresolved only unless `includeResolved`. */
+  conflicts(options?: { testId?: string; includeResolved?: boolean }): Promise<TeamConflict[]>;
+  /** Findings of the whole log (four eyes, events about unknown tests, ...). */
+  findings(): Promise<Finding[]>;
+  /** Decide a conflict: keep one of its events, or NO_EVENT ('none') to void a sign-off conflict. A reason is required. */
+  resolveConflict(conflictId: string, keep: string, user: string, reason: string): Promise<TeamConflict>;
+  /** What is waiting to sync for `user` on this device, and who changed what. */
+  syncStatus(user: string, options?: { folderReachable?: boolean | null; writtenSeq?: number }): Promise<SyncStatus>;
+  /** Record that the journal's events up to `seq` are in the team folder (or an exported bundle). */
+  markSynced(journal: string, seq: number): Promise<void>;
+  /** Every journal and raw file as one team bundle file. */
+  exportBundle(user?: string): Promise<Uint8Array>;
+  /** Check a bundle (refused whole with EngineError 'bad-bundle' when damaged) and apply its events. */
+  importBundle(bytes: Uint8Array, fileName: string): Promise<ApplyOutcome>;
+  /** Tests known from the log whose raw file is not here. */
+  missingRawFiles(): Promise<MissingRawFile[]>;
+  /** A raw file by SHA-256, or null. */
+  rawFile(hash: string): Promise<Uint8Array | null>;
 }

@@ -1,7 +1,7 @@
 import Dexie from 'dexie';
 import type {
-  ArchiveQuery, ArchiveService, ArchiveSettings, FieldRow, ImportFileInput, ImportOptions, ImportOutcome,
-  SavedMapping, StateCounts, TestDetail, TestSummary, UserRow, WellRow,
+  ApplyOutcome, ArchiveQuery, ArchiveSettings, FieldRow, ImportFileInput, ImportOptions, ImportOutcome,
+  MissingRawFile, SavedMapping, StateCounts, TeamArchiveService, TeamConflict, TeamIssue, TestDetail, TestSummary, UserRow, WellRow,
 } from './api';
 import type { ArchiveEvent, ArchiveEventBody, ReviewState } from './events';
 import type { AnalysisOptions } from '../engine/analysis-options';
@@ -9,7 +9,8 @@ import type { TestMetadata, TestRecord } from '../engine/record';
 import { PICK_KINDS, type AnalysisResult, type Pick as EnginePick, type PickKind } from '../engine/result';
 import { UNIT_SYSTEMS, type UnitSystem } from '../engine/units/unitSystem';
 import {
-  StressLedgerDb, nameKey, type StoredEvent, type StoredPick, type StoredTest,
+  StressLedgerDb, journalRowOf, nameKey, type StoredEvent, type StoredField, type StoredJournal, type StoredPick, type StoredSamples,
+  type StoredTest, type StoredWell,
 } from './db';
 import type { ArchiveEngine } from './engine-port';
 import { ArchiveError } from './errors';
@@ -17,7 +18,17 @@ import {
   normaliseUserName, requireReason, stateAfterPickChange, stateAfterRejection, stateAfterReopen,
   stateAfterReviewRequest, stateAfterSignOff,
 } from './review-rules';
-import { canonicalJson, sha256HexAsync, sha256HexOfText } from './sha256';
+import { canonicalJson } from './journal/canonical';
+import { sha256Hex, sha256HexAsync, sha256OfText } from './journal/sha256';
+import { validateEventShape } from './journal/validate';
+import { mergeEventSets } from './journal/merge';
+import { deriveArchiveState, NO_EVENT, picksVersionForTest } from './journal/derive';
+import type { DerivedState, DerivedTest, Finding } from './journal/derived-types';
+import { exportBundle, importBundle, journalTextsFromEvents } from './journal/bundle';
+import { describeEvent, syncStatus, type SyncStatus } from './journal/sync-status';
+import {
+  eventsSeenWith, manualPicksOf, pickAuthorOf, picksKeyOf, seenVectorOf, storedEventOf, type ManualPick,
+} from './team-rebuild';
 import { decodeBackup, encodeBackup, type TableDump } from './backup';
 import { compareSummaries, matchesQuery, toListRow, toSummary, type ListRow } from './query';
 import { describeImportFailure } from './import-failure';
@@ -32,7 +43,32 @@ export interface ArchiveConfig {
 }
 
 const DEFAULT_FIELD_NAME = 'Unassigned field';
-type ManualPick = TestDetail['manualPicks'][number];
+
+/**
+ * Authoring with fixed identity (the demo seed): events on `device`, ids `journal#seq`,
+ * times from `startTime` plus one minute per Lamport tick, seeing only that device's
+ * journals, test ids from the raw file's hash. Two archives running the same work on the
+ * same files make identical events.
+ */
+export interface FixedAuthoring {
+  device: string;
+  /** ISO 8601 UTC. */
+  startTime: string;
+}
+
+/** One table rewrite planned by the team rebuild (analysis done before the transaction). */
+interface RebuildPlan {
+  fields: StoredField[];
+  wells: StoredWell[];
+  tests: StoredTest[];
+  samples: StoredSamples[];
+  grades: ReturnType<typeof gradeRow>[];
+  picks: { testId: string; rows: StoredPick[] }[];
+  deleted: string[];
+  projectLimits: Record<string, number> | null;
+  missing: MissingRawFile[];
+  issues: TeamIssue[];
+}
 
 /**
  * The archive service over Dexie: tests, samples, picks, review log, users, mappings and
@@ -40,7 +76,7 @@ type ManualPick = TestDetail['manualPicks'][number];
  * review log (append-only: this class has no way to change or remove an event, and hooks
  * refuse it).
  */
-export class Archive implements ArchiveService {
+export class Archive implements TeamArchiveService {
   readonly db: StressLedgerDb;
   private readonly engine: ArchiveEngine;
   private readonly now: () => Date;
@@ -50,6 +86,10 @@ export class Archive implements ArchiveService {
   private listCache: Map<string, ListRow> | null = null;
   private cacheGeneration = 0;
   private readonly channel: BroadcastChannel | null;
+  private fixed: (FixedAuthoring & { start: number }) | null = null;
+  private teamQueue: Promise<unknown> = Promise.resolve();
+  private epoch = 0;
+  private derivedCache: { count: number; epoch: number; state: DerivedState; events: ArchiveEvent[] } | null = null;
 
   private constructor(config: ArchiveConfig) {
     this.db = config.db ?? new StressLedgerDb(config.databaseName);
@@ -110,33 +150,49 @@ export class Archive implements ArchiveService {
     }
   }
 
-  private nowIso(): string { return this.now().toISOString(); }
+  private nowIso(): string { return this.fixed ? this.fixed.startTime : this.now().toISOString(); }
 
   // ----- review log -------------------------------------------------------------------
 
-  /** Append one event; call inside a read-write transaction over all tables. */
+  /** The journals this device's new events see (in fixed authoring: that device's only). */
+  private async localJournals(): Promise<StoredJournal[]> {
+    const rows = await this.db.journals.toArray();
+    return this.fixed ? rows.filter((r) => r.device === this.fixed!.device) : rows;
+  }
+
+  /**
+   * Append one event; call inside a read-write transaction over all tables. Fills the
+   * envelope: `seq` (next in the author's journal on this device), `prev` (the hash of the
+   * journal's last event), `seen` (how far every other journal held here goes), the
+   * Lamport clock (highest held + 1), and the row's hash = the journal line's SHA-256.
+   */
   private async appendEvent(author: string, body: ArchiveEventBody): Promise<StoredEvent> {
-    const journal = `${author}@${this.device}`;
-    const latest = await this.db.events.orderBy('clock').last();
-    const latestInJournal = await this.db.events
-      .where('[journal+clock]').between([journal, Dexie.minKey], [journal, Dexie.maxKey]).last();
-    const previousSeq = latestInJournal
-      ? latestInJournal.seq ?? await this.db.events.where('[journal+clock]').between([journal, Dexie.minKey], [journal, Dexie.maxKey]).count()
-      : 0;
+    const device = this.fixed?.device ?? this.device;
+    const journal = `${author}@${device}`;
+    const rows = await this.localJournals();
+    const own = rows.find((r) => r.key === journal);
+    const seq = (own?.lastSeq ?? 0) + 1;
+    const clock = rows.reduce((m, r) => Math.max(m, r.clock), 0) + 1;
     const event: ArchiveEvent = {
-      id: crypto.randomUUID(),
+      id: this.fixed ? `${journal}#${seq}` : crypto.randomUUID(),
       author,
-      device: this.device,
-      time: this.nowIso(),
-      clock: (latest?.clock ?? 0) + 1,
-      prev: latestInJournal?.hash ?? '',
-      seq: previousSeq + 1,
+      device,
+      time: this.fixed ? new Date(this.fixed.start + clock * 60_000).toISOString() : this.nowIso(),
+      clock,
+      prev: own?.lastHash ?? '',
+      seq,
+      seen: seenVectorOf(rows, journal),
       body,
     };
-    const hash = sha256HexOfText(canonicalJson(event));
-    const row: StoredEvent = { ...event, testId: 'testId' in body ? body.testId : '', journal, hash };
+    const row = storedEventOf(event);
     await this.db.events.add(row);
+    await this.db.journals.put({
+      key: journal, author, device,
+      seq: !own || own.seq === own.lastSeq ? seq : own.seq,
+      lastSeq: seq, lastHash: row.hash, clock, events: (own?.events ?? 0) + 1,
+    });
     if (!(await this.db.users.get(author))) await this.db.users.add({ name: author, createdAt: event.time });
+    this.derivedCache = null;
     return row;
   }
 
@@ -271,7 +327,7 @@ export class Archive implements ArchiveService {
       const metadata: TestMetadata = { ...parsed.metadata, ...(options.overrides ?? {}) };
       const record: TestRecord = { ...parsed, metadata };
       const analysis = await this.engine.analyse(record, { type: options.type, overrides: options.overrides, limits });
-      const testId = crypto.randomUUID();
+      const testId = this.fixed ? `test-${hash.slice(0, 24)}` : crypto.randomUUID();
       const fieldName = cleanName(analysis.metadata.field ?? metadata.field) ?? options.defaultFieldName ?? DEFAULT_FIELD_NAME;
       const wellName = cleanName(analysis.metadata.well ?? metadata.well) ?? options.defaultWellName ?? fileName.replace(/\.[^.]+$/, '');
       const outcome = await this.write(async (touch): Promise<ImportOutcome> => {
@@ -279,10 +335,10 @@ export class Archive implements ArchiveService {
         if (again) return { fileName, status: 'duplicate', existingTestId: again.id };
         const fieldId = await this.findOrCreateField(fieldName, user);
         const well = await this.findOrCreateWell(fieldId, wellName, user);
-        const time = this.nowIso();
-        await this.appendEvent(user, {
+        const { time } = await this.appendEvent(user, {
           kind: 'test-imported', testId, wellId: well.id, type: analysis.type, typeInferred: analysis.typeInferred,
           metadata: analysis.metadata, fileHash: hash, fileName, layout: parsed.source.layout,
+          ...(options.parseOptions ? { parseOptions: options.parseOptions } : {}),
         });
         const row: StoredTest = {
           id: testId, fieldId, fieldName: (await this.db.fields.get(fieldId))!.name, wellId: well.id, wellName: well.name,
@@ -309,7 +365,7 @@ export class Archive implements ArchiveService {
     const key = nameKey(name);
     const found = await this.db.fields.where('nameKey').equals(key).first();
     if (found) return found.id;
-    const id = crypto.randomUUID();
+    const id = fieldIdOf(name);
     await this.db.fields.add({ id, name, nameKey: key });
     await this.appendEvent(user, { kind: 'field-created', fieldId: id, name });
     return id;
@@ -319,7 +375,7 @@ export class Archive implements ArchiveService {
     const key = nameKey(name);
     const found = await this.db.wells.where('[fieldId+nameKey]').equals([fieldId, key]).first();
     if (found) return stripWell(found);
-    const well = { id: crypto.randomUUID(), fieldId, name, nameKey: key };
+    const well = { id: wellIdOf(fieldId, name), fieldId, name, nameKey: key };
     await this.db.wells.add(well);
     await this.appendEvent(user, { kind: 'well-created', wellId: well.id, fieldId, name });
     return stripWell(well);
@@ -423,8 +479,10 @@ export class Archive implements ArchiveService {
     const author = normaliseUserName(user);
     return this.review(testId, async (test) => {
       const state = stateAfterSignOff(test.state, author, test.lastPickAuthor ?? test.importedBy);
-      const picks = await this.manualPicksInForce(testId);
-      const picksVersion = sha256HexOfText(canonicalJson(picks.map(({ cycle, kind, pick }) => ({ cycle, kind, pick }))));
+      // The journal's definition (journal/versions.ts), over the events this sign-off sees.
+      const journal = `${author}@${this.fixed?.device ?? this.device}`;
+      const seen = seenVectorOf(await this.localJournals(), journal);
+      const picksVersion = picksVersionForTest(eventsSeenWith(await this.eventsForTest(testId), journal, seen), testId);
       await this.appendEvent(author, { kind: 'signed-off', testId, note: note?.trim() || undefined, grade: test.grade, picksVersion });
       return { state, reviewer: author };
     });
@@ -541,6 +599,370 @@ export class Archive implements ArchiveService {
     return changedCount;
   }
 
+  // ----- team journal ------------------------------------------------------------------
+
+  /**
+   * Run `work` with fixed authoring (see FixedAuthoring): for the demo seed, so two fresh
+   * machines make the same demo events and exchanging bundles adds no duplicate tests.
+   * @throws ArchiveError 'bad-state' when the archive already holds events.
+   */
+  async withFixedAuthoring<T>(authoring: FixedAuthoring, work: () => Promise<T>): Promise<T> {
+    const start = Date.parse(authoring.startTime);
+    if (!authoring.device || !Number.isFinite(start)) throw new ArchiveError('bad-argument', 'Fixed authoring needs a device id and an ISO start time.');
+    if ((await this.db.events.count()) > 0) throw new ArchiveError('bad-state', 'Fixed authoring is only for an archive without events.');
+    this.fixed = { ...authoring, start };
+    try {
+      return await work();
+    } finally {
+      this.fixed = null;
+    }
+  }
+
+  /** Team operations one at a time (merges, decisions, rebuilds). */
+  private serialTeam<T>(work: () => Promise<T>): Promise<T> {
+    const next = this.teamQueue.then(work, work);
+    this.teamQueue = next.catch(() => undefined);
+    return next;
+  }
+
+  private async allEvents(): Promise<ArchiveEvent[]> {
+    return (await this.db.events.toArray()).map(toEvent);
+  }
+
+  /** The state derived from the whole log (cached while the log is unchanged). */
+  private async derived(): Promise<{ state: DerivedState; events: ArchiveEvent[]; count: number }> {
+    const count = await this.db.events.count();
+    const cache = this.derivedCache;
+    if (cache && cache.count === count && cache.epoch === this.epoch) return cache;
+    const epoch = this.epoch;
+    const events = await this.allEvents();
+    const state = deriveArchiveState(events);
+    const fresh = { count: events.length, epoch, state, events };
+    if (epoch === this.epoch) this.derivedCache = fresh;
+    return fresh;
+  }
+
+  async applyEvents(incoming: readonly ArchiveEvent[], rawFiles?: ReadonlyMap<string, Uint8Array>): Promise<ApplyOutcome> {
+    return this.serialTeam(async () => {
+      const issues: TeamIssue[] = [];
+      const valid: ArchiveEvent[] = [];
+      for (const e of incoming) {
+        const problem = validateEventShape(e);
+        if (problem) issues.push({ kind: 'bad-event', message: `event ${(e as { id?: unknown })?.id ?? '?'}: ${problem}; not applied` });
+        else valid.push(e);
+      }
+      const merge = mergeEventSets(await this.allEvents(), valid);
+      for (const c of merge.collisions) issues.push({ kind: 'id-collision', message: c.message });
+      const raw = new Map<string, Uint8Array>();
+      for (const [hash, bytes] of rawFiles ?? []) {
+        if (sha256Hex(bytes) === hash) raw.set(hash, bytes);
+        else issues.push({ kind: 'raw-damaged', message: `raw file ${hash} does not match its hash; not stored` });
+      }
+      const fileNames = new Map<string, string>();
+      for (const e of merge.events) if (e.body.kind === 'test-imported') fileNames.set(e.body.fileHash, e.body.fileName);
+      if (merge.added.length || raw.size) {
+        await this.db.transaction('rw', [this.db.events, this.db.journals, this.db.rawFiles, this.db.users], async () => {
+          const present = await this.db.events.bulkGet(merge.added.map((e) => e.id));
+          const rows = merge.added.filter((_, i) => !present[i]).map(storedEventOf);
+          if (rows.length) await this.db.events.bulkAdd(rows);
+          for (const key of new Set(rows.map((r) => r.journal))) {
+            const all = await this.db.events.where('[journal+clock]').between([key, Dexie.minKey], [key, Dexie.maxKey]).toArray();
+            await this.db.journals.put(journalRowOf(all));
+          }
+          const time = this.nowIso();
+          for (const [hash, bytes] of raw) {
+            if (!(await this.db.rawFiles.get(hash))) await this.db.rawFiles.add({ hash, bytes, size: bytes.length, fileName: fileNames.get(hash) ?? hash, storedAt: time });
+          }
+          for (const author of new Set(rows.map((r) => r.author))) {
+            if (!(await this.db.users.get(author))) await this.db.users.add({ name: author, createdAt: time });
+          }
+        });
+        this.derivedCache = null;
+      }
+      const rebuilt = await this.rebuildFromLog(raw);
+      issues.push(...rebuilt.issues);
+      const addedIds = new Set(merge.added.map((e) => e.id));
+      const described = this.describeConflicts(rebuilt.state, rebuilt.events);
+      this.channel?.postMessage('changed');
+      this.changed();
+      return {
+        added: merge.added.length,
+        duplicates: merge.duplicates,
+        conflicts: described.filter((c) => !c.resolution && c.eventIds.some((id) => addedIds.has(id))),
+        findings: rebuilt.state.findings.filter((f) => addedIds.has(f.eventId)),
+        issues,
+        missingRawFiles: rebuilt.missing,
+      };
+    });
+  }
+
+  /**
+   * Bring the tables in line with the state derived from the log: new tests (samples
+   * built from raw files through the engine, no event written), review states,
+   * reviewers, manual picks, limits, conflicts marks. Analysis runs before the write
+   * transaction; the transaction is retried when the log grew meanwhile.
+   */
+  private async rebuildFromLog(raw: ReadonlyMap<string, Uint8Array>): Promise<{ state: DerivedState; events: ArchiveEvent[]; missing: MissingRawFile[]; issues: TeamIssue[] }> {
+    for (let attempt = 0; attempt < 4; attempt++) {
+      const { state, events, count } = await this.derived();
+      const plan = await this.planRebuild(state, events, raw);
+      const touched: StoredTest[] = [];
+      const done = await this.db.transaction('rw', this.db.tables, async () => {
+        if ((await this.db.events.count()) !== count) return false;
+        await this.writePlan(plan);
+        touched.push(...plan.tests);
+        return true;
+      });
+      if (done) {
+        if (plan.deleted.length) this.forgetList(); else this.rememberRows(touched);
+        return { state, events, missing: plan.missing, issues: plan.issues };
+      }
+    }
+    throw new ArchiveError('bad-state', 'The archive kept changing while team changes were applied; try again.');
+  }
+
+  private async planRebuild(state: DerivedState, events: readonly ArchiveEvent[], raw: ReadonlyMap<string, Uint8Array>): Promise<RebuildPlan> {
+    const plan: RebuildPlan = { fields: [], wells: [], tests: [], samples: [], grades: [], picks: [], deleted: [], projectLimits: null, missing: [], issues: [] };
+    const settings = await this.getSettings();
+    let limits = settings.limits;
+    if (events.some((e) => e.body.kind === 'limits-changed' && e.body.scope === 'project') && canonicalJson(state.projectLimits) !== canonicalJson(limits)) {
+      limits = { ...state.projectLimits };
+      plan.projectLimits = limits;
+    }
+    const fieldsById = new Map((await this.db.fields.toArray()).map((f) => [f.id, f]));
+    const takenKeys = new Set([...fieldsById.values()].map((f) => f.nameKey));
+    for (const field of Object.values(state.fields)) {
+      const known = fieldsById.get(field.id);
+      if (known) continue;
+      // Two machines that named a field alike with different ids (archives made before
+      // ids came from names): both kept, the second under a key that stays unique.
+      let key = nameKey(field.name);
+      if (takenKeys.has(key)) key = `${key}\u0001${field.id}`;
+      takenKeys.add(key);
+      const row = { id: field.id, name: field.name, nameKey: key };
+      plan.fields.push(row);
+      fieldsById.set(row.id, row);
+    }
+    const parseOptionsByImport = new Map<string, Record<string, unknown>>();
+    for (const e of events) if (e.body.kind === 'test-imported' && e.body.parseOptions) parseOptionsByImport.set(e.id, e.body.parseOptions);
+    const wellsById = new Map((await this.db.wells.toArray()).map((w) => [w.id, w]));
+    for (const well of Object.values(state.wells)) {
+      const known = wellsById.get(well.id);
+      const row: StoredWell = {
+        ...(known ?? {}), id: well.id, fieldId: well.fieldId, name: well.name, nameKey: nameKey(well.name),
+        ...(well.location !== undefined ? { location: well.location } : {}),
+        ...(well.rigFloorElevation !== undefined ? { rigFloorElevation: well.rigFloorElevation } : {}),
+        ...(well.waterDepth !== undefined ? { waterDepth: well.waterDepth } : {}),
+        ...(well.survey ? { survey: well.survey } : {}),
+      };
+      if (!known || canonicalJson(row) !== canonicalJson(known)) plan.wells.push(row);
+      wellsById.set(row.id, row);
+    }
+    for (const test of Object.values(state.tests)) {
+      const row = await this.db.tests.get(test.id);
+      if (test.deleted) { if (row) plan.deleted.push(test.id); continue; }
+      const manual = manualPicksOf(test);
+      const pickAuthor = pickAuthorOf(test);
+      const testLimits = Object.keys(test.limits).length ? { ...test.limits } : undefined;
+      const review = {
+        state: test.state, reviewer: test.reviewer, lastPickAuthor: pickAuthor,
+        ...(test.openConflicts.length ? { openConflicts: [...test.openConflicts] } : {}),
+      };
+      if (!row) {
+        const bytes = raw.get(test.fileHash) ?? (await this.db.rawFiles.get(test.fileHash))?.bytes;
+        if (!bytes) { plan.missing.push({ testId: test.id, fileHash: test.fileHash, fileName: test.fileName }); continue; }
+        const well = wellsById.get(test.wellId);
+        const field = well ? fieldsById.get(well.fieldId) : undefined;
+        if (!well || !field) {
+          plan.issues.push({ kind: 'unknown-well', message: `test ${test.id} (${test.fileName}) names well ${test.wellId}, which this archive does not have; not shown yet` });
+          continue;
+        }
+        const built = await this.buildTestFromRaw(test, bytes, parseOptionsByImport.get(test.importEventId), { ...limits, ...(testLimits ?? {}) }, manual);
+        if ('issue' in built) { plan.issues.push(built.issue); continue; }
+        const { parsed, analysis } = built;
+        const stored: StoredTest = {
+          id: test.id, fieldId: field.id, fieldName: field.name, wellId: well.id, wellName: well.name, wellNameKey: nameKey(well.name),
+          ...summaryFromAnalysis(analysis), ...review, fileName: test.fileName, fileHash: test.fileHash,
+          importedAt: test.importedAt, importedBy: test.importedBy, contractor: test.metadata.contractor,
+          metadata: test.metadata, source: parsed.source, ...(testLimits ? { limits: testLimits } : {}),
+        };
+        plan.tests.push(stored);
+        plan.samples.push({ testId: test.id, time: parsed.time, pressure: parsed.pressure, rate: parsed.rate, volume: parsed.volume });
+        plan.grades.push(gradeRow(test.id, analysis, limits, this.nowIso()));
+        plan.picks.push({ testId: test.id, rows: pickRowsOf(test, manual) });
+        continue;
+      }
+      const current = foldPicks(await this.db.picks.where('testId').equals(test.id).sortBy('seq'));
+      const picksChanged = picksKeyOf(current) !== picksKeyOf(manual);
+      const limitsChanged = canonicalJson(row.limits ?? {}) !== canonicalJson(testLimits ?? {});
+      let next: StoredTest = { ...row, ...review };
+      if (!review.openConflicts) delete next.openConflicts;
+      if (testLimits) next.limits = testLimits; else delete next.limits;
+      if (picksChanged || limitsChanged) {
+        const samples = await this.db.samples.get(test.id);
+        if (samples) {
+          try {
+            const analysis = await this.engine.analyse(recordOf(next, samples), analysisOptions(next, limits, manual));
+            next = { ...next, ...summaryFromAnalysis(analysis) };
+            plan.grades.push(gradeRow(test.id, analysis, limits, this.nowIso()));
+          } catch (error) {
+            plan.issues.push({ kind: 'analysis-failed', message: `test ${test.id} could not be re-analysed with the merged picks: ${(error as Error).message}` });
+          }
+        }
+        if (picksChanged) plan.picks.push({ testId: test.id, rows: pickRowsOf(test, manual) });
+      }
+      if (canonicalJson(summaryKey(next)) !== canonicalJson(summaryKey(row))) plan.tests.push(next);
+    }
+    return plan;
+  }
+
+  private async buildTestFromRaw(
+    test: DerivedTest, bytes: Uint8Array, parseOptions: Record<string, unknown> | undefined, limits: Record<string, number>, manual: ManualPick[],
+  ): Promise<{ parsed: TestRecord; analysis: AnalysisResult } | { issue: TeamIssue }> {
+    try {
+      const parsed = await this.engine.parse(bytes, test.fileName, parseOptions);
+      const record: TestRecord = { ...parsed, metadata: test.metadata };
+      const analysis = await this.engine.analyse(record, {
+        type: test.typeInferred ? undefined : test.type, limits,
+        manualPicks: manual.map(({ cycle, kind, pick, reason }) => ({ cycle, kind, pick, reason })),
+      });
+      return { parsed: record, analysis };
+    } catch (error) {
+      const failure = describeImportFailure(error, test.fileName);
+      return { issue: { kind: 'raw-unreadable', message: `test ${test.id}: ${failure.message}`, file: test.fileName, line: failure.line, column: failure.column } };
+    }
+  }
+
+  private async writePlan(plan: RebuildPlan): Promise<void> {
+    if (plan.fields.length) await this.db.fields.bulkPut(plan.fields);
+    if (plan.wells.length) await this.db.wells.bulkPut(plan.wells);
+    for (const id of plan.deleted) {
+      await this.db.tests.delete(id);
+      await this.db.samples.delete(id);
+      await this.db.grades.delete(id);
+      await this.db.picks.where('testId').equals(id).delete();
+    }
+    if (plan.tests.length) await this.db.tests.bulkPut(plan.tests);
+    for (const samples of plan.samples) await this.db.samples.put(samples);
+    if (plan.grades.length) await this.db.grades.bulkPut(plan.grades);
+    for (const { testId, rows } of plan.picks) {
+      await this.db.picks.where('testId').equals(testId).delete();
+      if (rows.length) await this.db.picks.bulkAdd(rows);
+    }
+    if (plan.projectLimits) await this.db.settings.put({ key: 'limits', value: plan.projectLimits });
+  }
+
+  private describeConflicts(state: DerivedState, events: readonly ArchiveEvent[]): TeamConflict[] {
+    const byId = new Map(events.map((e) => [e.id, e]));
+    const out: TeamConflict[] = Object.values(state.conflicts).map((c) => ({
+      ...c,
+      events: c.eventIds.map((id) => byId.get(id)).filter((e): e is ArchiveEvent => e !== undefined)
+        .map((e) => ({ id: e.id, author: e.author, device: e.device, time: e.time, kind: e.body.kind, summary: describeEvent(e) })),
+    }));
+    const first = (c: TeamConflict) => c.events.reduce((m, e) => (e.time < m ? e.time : m), '\uffff');
+    return out.sort((a, b) => (first(a) < first(b) ? -1 : first(a) > first(b) ? 1 : a.id < b.id ? -1 : 1));
+  }
+
+  async conflicts(options: { testId?: string; includeResolved?: boolean } = {}): Promise<TeamConflict[]> {
+    const { state, events } = await this.derived();
+    return this.describeConflicts(state, events)
+      .filter((c) => (options.includeResolved || !c.resolution) && (!options.testId || c.testId === options.testId));
+  }
+
+  async findings(): Promise<Finding[]> {
+    return [...(await this.derived()).state.findings];
+  }
+
+  async resolveConflict(conflictId: string, keep: string, user: string, reason: string): Promise<TeamConflict> {
+    const author = normaliseUserName(user);
+    const why = requireReason(reason, 'decide a conflict');
+    return this.serialTeam(async () => {
+      const { state } = await this.derived();
+      const conflict = state.conflicts[conflictId];
+      if (!conflict) throw new ArchiveError('not-found', `No conflict with id ${conflictId}.`);
+      if (conflict.resolution) throw new ArchiveError('bad-state', `This conflict was already decided by ${conflict.resolution.author} ("${conflict.resolution.reason}").`);
+      if (keep === NO_EVENT ? conflict.kind === 'concurrent-pick-moves' : !conflict.eventIds.includes(keep)) {
+        throw new ArchiveError('bad-argument', keep === NO_EVENT
+          ? 'A conflict between two pick moves is decided by keeping one of them.'
+          : `Event ${keep} is not part of this conflict; keep one of ${conflict.eventIds.join(', ')}${conflict.kind === 'concurrent-pick-moves' ? '' : ` or "${NO_EVENT}"`}.`);
+      }
+      await this.write(async () => {
+        await this.appendEvent(author, { kind: 'conflict-resolved', conflictId, testId: conflict.testId, keep, reason: why });
+      });
+      const rebuilt = await this.rebuildFromLog(new Map());
+      this.channel?.postMessage('changed');
+      this.changed();
+      return this.describeConflicts(rebuilt.state, rebuilt.events).find((c) => c.id === conflictId)!;
+    });
+  }
+
+  private async syncMarks(): Promise<Record<string, number>> {
+    const stored = await this.db.settings.get('syncMarks');
+    return (stored?.value as Record<string, number> | undefined) ?? {};
+  }
+
+  async markSynced(journal: string, seq: number): Promise<void> {
+    if (!journal || !Number.isInteger(seq) || seq < 0) throw new ArchiveError('bad-argument', 'A sync mark needs a journal key and a whole number.');
+    await this.db.transaction('rw', this.db.settings, async () => {
+      const marks = await this.syncMarks();
+      if ((marks[journal] ?? 0) >= seq) return;
+      await this.db.settings.put({ key: 'syncMarks', value: { ...marks, [journal]: seq } });
+    });
+  }
+
+  async syncStatus(user: string, options: { folderReachable?: boolean | null; writtenSeq?: number } = {}): Promise<SyncStatus> {
+    const journal = `${normaliseUserName(user)}@${this.device}`;
+    const marks = await this.syncMarks();
+    return syncStatus({
+      journal, events: await this.allEvents(),
+      writtenSeq: Math.max(options.writtenSeq ?? 0, marks[journal] ?? 0),
+      folderReachable: options.folderReachable ?? null,
+    });
+  }
+
+  async exportBundle(user?: string): Promise<Uint8Array> {
+    const [events, raw, journals] = await this.db.transaction('r', [this.db.events, this.db.rawFiles, this.db.journals], async () =>
+      [await this.allEvents(), await this.db.rawFiles.toArray(), await this.db.journals.toArray()] as const);
+    const bytes = exportBundle({
+      journals: journalTextsFromEvents(events), raw: raw.map((r) => ({ hash: r.hash, bytes: r.bytes })),
+      createdBy: user ? normaliseUserName(user) : this.device, createdAt: this.now().toISOString(),
+    });
+    for (const row of journals) if (row.device === this.device) await this.markSynced(row.key, row.lastSeq);
+    return bytes;
+  }
+
+  async importBundle(bytes: Uint8Array, fileName: string): Promise<ApplyOutcome> {
+    const bundle = importBundle(bytes, fileName);
+    const outcome = await this.applyEvents(bundle.read.events, new Map(bundle.raw.map((r) => [r.hash, r.bytes])));
+    const journalIssues: TeamIssue[] = bundle.read.issues.map((i) => ({ kind: i.kind, message: i.message, file: i.file, line: i.line, column: i.column }));
+    const collisions: TeamIssue[] = bundle.read.collisions.map((c) => ({ kind: 'id-collision', message: c.message }));
+    return { ...outcome, issues: [...journalIssues, ...collisions, ...outcome.issues] };
+  }
+
+  async missingRawFiles(): Promise<MissingRawFile[]> {
+    const { state } = await this.derived();
+    const out: MissingRawFile[] = [];
+    for (const test of Object.values(state.tests)) {
+      if (test.deleted || (await this.db.tests.get(test.id))) continue;
+      if (!(await this.db.rawFiles.get(test.fileHash))) out.push({ testId: test.id, fileHash: test.fileHash, fileName: test.fileName });
+    }
+    return out;
+  }
+
+  async rawFile(hash: string): Promise<Uint8Array | null> {
+    return (await this.db.rawFiles.get(hash))?.bytes ?? null;
+  }
+
+  /** Build tables for tests the log knows and whose raw files are here (e.g. after they arrived). */
+  async rebuild(): Promise<MissingRawFile[]> {
+    return this.serialTeam(async () => {
+      const { missing } = await this.rebuildFromLog(new Map());
+      this.channel?.postMessage('changed');
+      this.changed();
+      return missing;
+    });
+  }
+
   // ----- backup ------------------------------------------------------------------------
 
   async exportBackup(): Promise<Uint8Array> {
@@ -568,11 +990,37 @@ export class Archive implements ArchiveService {
     }
     this.channel?.postMessage('changed');
     await this.ensureDevice();
+    await this.rebuildJournalRows();
     this.changed();
+  }
+
+  /** Recount the journals table from the log (after a restore). */
+  private async rebuildJournalRows(): Promise<void> {
+    this.derivedCache = null;
+    this.epoch += 1;
+    await this.db.transaction('rw', [this.db.events, this.db.journals], async () => {
+      const byJournal = new Map<string, StoredEvent[]>();
+      await this.db.events.each((row) => {
+        const list = byJournal.get(row.journal);
+        if (list) list.push(row); else byJournal.set(row.journal, [row]);
+      });
+      await this.db.journals.clear();
+      for (const rows of byJournal.values()) await this.db.journals.put(journalRowOf(rows));
+    });
   }
 }
 
 // ----- helpers -------------------------------------------------------------------------
+
+/** Field id from the name: every machine that creates a field of this name gives it the same id. */
+export function fieldIdOf(name: string): string {
+  return `field-${sha256OfText(nameKey(name)).slice(0, 24)}`;
+}
+
+/** Well id from its field and name, alike on every machine. */
+export function wellIdOf(fieldId: string, name: string): string {
+  return `well-${sha256OfText(`${fieldId}\n${nameKey(name)}`).slice(0, 24)}`;
+}
 
 function toEvent(row: StoredEvent): ArchiveEvent {
   const { testId: _testId, journal: _journal, hash: _hash, ...event } = row;
@@ -596,7 +1044,7 @@ function recordOf(test: StoredTest, samples: { time: Float64Array; pressure: Flo
 function analysisOptions(test: StoredTest, limits: Record<string, number>, manualPicks: ManualPick[]): AnalysisOptions {
   return {
     type: test.typeInferred ? undefined : test.type,
-    limits,
+    limits: test.limits ? { ...limits, ...test.limits } : limits,
     manualPicks: manualPicks.map(({ cycle, kind, pick, reason }) => ({ cycle, kind, pick, reason })),
   };
 }
@@ -612,6 +1060,22 @@ function summaryFromAnalysis(analysis: AnalysisResult): Pick<StoredTest, 'type' 
     shminKind: shmin ? shmin.kind : null,
     grade: analysis.quality.grade,
   };
+}
+
+/** The parts of a test row the rebuild may change (compared to skip writes that change nothing). */
+function summaryKey(row: StoredTest): unknown {
+  return {
+    state: row.state, reviewer: row.reviewer, lastPickAuthor: row.lastPickAuthor, openConflicts: row.openConflicts ?? [],
+    limits: row.limits ?? {}, grade: row.grade, shmin: row.shmin, shminKind: row.shminKind, type: row.type, depthTvd: row.depthTvd,
+  };
+}
+
+/** Picks table rows for the manual picks in force of a derived test. */
+function pickRowsOf(test: DerivedTest, manual: ManualPick[]): StoredPick[] {
+  return manual.map((p) => ({
+    testId: test.id, cycle: p.cycle, kind: p.kind, pick: p.pick, reason: p.reason, author: p.author, time: p.time,
+    eventId: test.picks[`${p.cycle}:${p.kind}`]?.eventId ?? '',
+  }));
 }
 
 function gradeRow(testId: string, analysis: AnalysisResult, limits: Record<string, number>, time: string) {

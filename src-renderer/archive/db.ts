@@ -40,7 +40,17 @@ export const SCHEMA_V2 = {
   settings: 'key',
 } as const;
 
-export const CURRENT_SCHEMA_VERSION = 2;
+/**
+ * Version 3 (team journals): adds the journals table, one row per journal (`author@device`)
+ * held locally: how far it goes and where its chain ends. New events take their `seq`,
+ * `prev` and `seen` from it.
+ */
+export const SCHEMA_V3 = {
+  ...SCHEMA_V2,
+  journals: 'key',
+} as const;
+
+export const CURRENT_SCHEMA_VERSION = 3;
 
 export interface StoredField extends FieldRow { nameKey: string }
 export interface StoredWell extends WellRow { nameKey: string }
@@ -54,6 +64,8 @@ export interface StoredTest extends TestSummary {
   source: StoredSource;
   /** Lower-case well name (version 2). */
   wellNameKey: string;
+  /** Limits of this test overriding the project's (from the team log; absent when none). */
+  limits?: Record<string, number>;
 }
 
 export interface StoredSamples {
@@ -115,6 +127,24 @@ export type StoredMapping = SavedMapping;
 
 export interface StoredSetting { key: string; value: unknown }
 
+/** One journal held locally (version 3): what `seen` and the next own event are made from. */
+export interface StoredJournal {
+  /** `author@device`. */
+  key: string;
+  author: string;
+  device: string;
+  /** Highest `seq` up to which every event of the journal is held (no gap before it). */
+  seq: number;
+  /** Highest `seq` held (equal to `seq` unless events are missing in between). */
+  lastSeq: number;
+  /** Stored hash of the event at `lastSeq` (the next own event's `prev`). */
+  lastHash: string;
+  /** Highest Lamport clock in the journal. */
+  clock: number;
+  /** Number of events held. */
+  events: number;
+}
+
 export class StressLedgerDb extends Dexie {
   declare fields: Table<StoredField, string>;
   declare wells: Table<StoredWell, string>;
@@ -127,17 +157,19 @@ export class StressLedgerDb extends Dexie {
   declare users: Table<StoredUser, string>;
   declare mappings: Table<StoredMapping, string>;
   declare settings: Table<StoredSetting, string>;
+  declare journals: Table<StoredJournal, string>;
 
   constructor(name: string = DEFAULT_DATABASE_NAME, options?: ConstructorParameters<typeof Dexie>[1]) {
     super(name, options);
     this.version(1).stores(SCHEMA_V1);
     this.version(2).stores(SCHEMA_V2).upgrade(upgradeToVersion2);
+    this.version(3).stores(SCHEMA_V3).upgrade(upgradeToVersion3);
   }
 }
 
 /** Every table name, in the order backups write them. */
 export const TABLE_NAMES = [
-  'fields', 'wells', 'tests', 'samples', 'rawFiles', 'picks', 'grades', 'events', 'users', 'mappings', 'settings',
+  'fields', 'wells', 'tests', 'samples', 'rawFiles', 'picks', 'grades', 'events', 'users', 'mappings', 'settings', 'journals',
 ] as const;
 export type TableName = (typeof TABLE_NAMES)[number];
 
@@ -172,6 +204,38 @@ export async function upgradeToVersion2(tx: Transaction): Promise<void> {
   if (lastEvent) await settings.put({ key: 'device', value: lastEvent.device });
   await tx.table('users').toCollection().modify((user: StoredUser) => { delete user.unitSystem; });
   await tx.table('tests').toCollection().modify((test: StoredTest) => { test.wellNameKey = nameKey(test.wellName); });
+}
+
+/**
+ * Version 2 -> 3: one journals row per `author@device` found in the log. Events made
+ * before journals had numbers (no `seq`) count by their place in the journal's clock
+ * order, as the archive numbered them.
+ */
+export async function upgradeToVersion3(tx: Transaction): Promise<void> {
+  const byJournal = new Map<string, StoredEvent[]>();
+  await tx.table('events').each((row: StoredEvent) => {
+    const list = byJournal.get(row.journal);
+    if (list) list.push(row); else byJournal.set(row.journal, [row]);
+  });
+  const table = tx.table('journals');
+  for (const rows of byJournal.values()) await table.put(journalRowOf(rows));
+}
+
+/** The journals row of one journal's events (any order). */
+export function journalRowOf(rows: readonly StoredEvent[]): StoredJournal {
+  const ordered = [...rows].sort((a, b) => a.clock - b.clock || (a.seq ?? 0) - (b.seq ?? 0));
+  const numbered = ordered.map((row, i) => ({ row, seq: row.seq ?? i + 1 }));
+  const seqs = new Set(numbered.map((n) => n.seq));
+  let contiguous = 0;
+  while (seqs.has(contiguous + 1)) contiguous += 1;
+  let last = numbered[0];
+  for (const n of numbered) if (n.seq >= last.seq) last = n;
+  const first = ordered[0];
+  return {
+    key: first.journal, author: first.author, device: first.device,
+    seq: contiguous, lastSeq: last.seq, lastHash: last.row.hash,
+    clock: ordered[ordered.length - 1].clock, events: rows.length,
+  };
 }
 
 /** The key names are matched by: trimmed, inner spaces collapsed, lower case. */

@@ -1,5 +1,6 @@
 /// <reference types="vite/client" />
 import type { ArchiveService, ImportFileInput, ImportOutcome } from './api';
+import { sha256Hex, sha256OfText } from './journal/sha256';
 
 /**
  * The demo archive written on first run: the committed demo files of the invented Harrow
@@ -9,6 +10,11 @@ import type { ArchiveService, ImportFileInput, ImportOutcome } from './api';
  *
  * The files are bundled as assets (import.meta.glob of ?url) and fetched, so the same code
  * works in the Electron build (app:// scheme) and the web build.
+ *
+ * The seed is deterministic: on an archive without events it runs with fixed authoring
+ * (Archive.withFixedAuthoring): a device id, event ids, test ids and times derived from
+ * the demo files' SHA-256 hashes. Two fresh machines therefore write the same demo events,
+ * and exchanging team bundles between them adds no duplicate demo tests.
  */
 
 export const DEMO_IMPORTER = 'Maren Holt';
@@ -86,6 +92,33 @@ export async function loadBundledDemoFiles(assets: Record<string, string> = DEMO
  */
 export async function seedDemoArchive(archive: ArchiveService, options: SeedOptions = {}): Promise<SeedReport> {
   const { files, manifest } = await (options.loadFiles ?? (() => loadBundledDemoFiles()))();
+  const fixed = archive as ArchiveService & Partial<FixedAuthoringArchive>;
+  if (typeof fixed.withFixedAuthoring === 'function' && (await archive.listEvents()).length === 0) {
+    return fixed.withFixedAuthoring(demoAuthoring(files), () => seedFiles(archive, files, manifest, options));
+  }
+  return seedFiles(archive, files, manifest, options);
+}
+
+/** An archive that can author events with a fixed identity (Archive in archive/archive.ts). */
+export interface FixedAuthoringArchive {
+  withFixedAuthoring<T>(authoring: { device: string; startTime: string }, work: () => Promise<T>): Promise<T>;
+}
+
+/** Earliest demo time; the seed starts within 90 days after it. */
+const DEMO_EPOCH = Date.UTC(2026, 0, 5, 7, 0, 0);
+
+/**
+ * The demo seed's device id and start time, from the SHA-256 of the demo files: the same
+ * files give the same identity on every machine.
+ * @example demoAuthoring(files) // { device: 'demo-3f2a…', startTime: '2026-02-11T…Z' }
+ */
+export function demoAuthoring(files: readonly ImportFileInput[]): { device: string; startTime: string } {
+  const digest = sha256OfText(files.map((f) => sha256Hex(f.bytes)).sort().join('\n'));
+  const minutes = parseInt(digest.slice(16, 24), 16) % (90 * 24 * 60);
+  return { device: `demo-${digest.slice(0, 16)}`, startTime: new Date(DEMO_EPOCH + minutes * 60_000).toISOString() };
+}
+
+async function seedFiles(archive: ArchiveService, files: ImportFileInput[], manifest: DemoManifestEntry[] | null, options: SeedOptions): Promise<SeedReport> {
   await archive.addUser(DEMO_IMPORTER);
   await archive.addUser(DEMO_REVIEWER);
   options.onProgress?.(`Importing ${files.length} demo files…`);

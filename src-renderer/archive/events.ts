@@ -52,6 +52,11 @@ export type ArchiveEventBody =
       fileHash: string;
       fileName: string;
       layout: string;
+      /**
+       * Options the file was read with (e.g. column roles the user confirmed), so another
+       * machine reads the raw file the same way (added with the team journal).
+       */
+      parseOptions?: Record<string, unknown>;
     }
   | { kind: 'pick-moved'; testId: string; cycle: number; pickKind: PickKind; pick: Pick | null; reason: string }
   | { kind: 'picks-reset'; testId: string; reason: string }

@@ -35,6 +35,7 @@ export function toSummary(row: ListRow | StoredTest): TestSummary {
     shmin: row.shmin, shminKind: row.shminKind, grade: row.grade, state: row.state, reviewer: row.reviewer,
     lastPickAuthor: row.lastPickAuthor, fileName: row.fileName, fileHash: row.fileHash,
     importedAt: row.importedAt, importedBy: row.importedBy, contractor: row.contractor,
+    ...(row.openConflicts?.length ? { openConflicts: [...row.openConflicts] } : {}),
   };
 }
 

@@ -14,4 +14,7 @@ export function getBridge(): StressLedgerBridge {
   return webBridge;
 }
 
-export type { StressLedgerBridge, PickedFile, MenuCommand } from './types';
+export type {
+  StressLedgerBridge, PickedFile, MenuCommand, TeamFolderBridge, TeamFolderInfo, TeamFolderNotice, TeamJournalChanges,
+  TeamJournalIssue, TeamPushResult, TeamRawRead,
+} from './types';

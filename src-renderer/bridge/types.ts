@@ -1,3 +1,5 @@
+import type { ArchiveEvent } from '../archive/events';
+
 /**
  * The bridge between the renderer and the system. Electron's preload exposes one
  * implementation as `window.stressLedger`; the web build provides another (file inputs,
@@ -32,4 +34,73 @@ export interface StressLedgerBridge {
   /** Recent archives / recently opened files list, kept by the shell. */
   recentFiles(): Promise<string[]>;
   appVersion(): Promise<string>;
+  /** The shared team folder (Electron only; the browser build shares through bundles). */
+  readonly teamFolder?: TeamFolderBridge;
+}
+
+/** Where the team folder connection stands. */
+export interface TeamFolderInfo {
+  /** The connected folder, or null before connectTeamFolder. */
+  folder: string | null;
+  author: string | null;
+  device: string | null;
+  /** Whether the folder could be reached at the last attempt (null before any). */
+  reachable: boolean | null;
+  /** Highest own `seq` of the connected user's journal in the folder. */
+  writtenSeq: number;
+  /** Own events handed over but not yet written (folder unreachable). */
+  waiting: number;
+}
+
+/** What one push did, per own journal (one per user on this device). */
+export interface TeamPushResult {
+  reachable: boolean;
+  journals: { journal: string; written: number; waiting: number; writtenSeq: number; problem?: string; repaired?: { keptAs: string; bytes: number } }[];
+}
+
+/** A journal problem found while reading the folder (torn tail, broken chain ...). */
+export interface TeamJournalIssue { kind: string; file: string; line: number; column?: number; message: string }
+
+/** New events of one journal file since the last read. */
+export interface TeamJournalChanges {
+  file: string;
+  events: ArchiveEvent[];
+  issues: TeamJournalIssue[];
+  /** Read again from the start (the file shrank or was replaced). */
+  fromStart: boolean;
+  /** Bytes after the last newline not yet read. */
+  unterminatedBytes: number;
+}
+
+export type TeamRawRead =
+  | { status: 'ok'; bytes: Uint8Array }
+  | { status: 'missing' }
+  | { status: 'damaged'; message: string };
+
+/** What the folder watcher reports. */
+export type TeamFolderNotice =
+  | { kind: 'journals-changed'; files: string[] }
+  | { kind: 'reachability'; reachable: boolean }
+  | { kind: 'written'; writtenSeq: number }
+  | { kind: 'error'; message: string };
+
+/**
+ * The shared team folder, through the main process (src-main/team-folder.ts). One named
+ * function per IPC message; every payload is checked in main.
+ */
+export interface TeamFolderBridge {
+  /** Native folder dialog; the chosen absolute path, or null when cancelled. */
+  chooseTeamFolder(): Promise<string | null>;
+  /** Use `folder` for `author` on `device` (this archive's device id); starts watching it. */
+  connectTeamFolder(options: { folder: string; author: string; device: string }): Promise<TeamFolderInfo>;
+  /** Write this device's events the folder lacks (other devices' events are ignored). Idempotent. */
+  pushTeamEvents(events: ArchiveEvent[]): Promise<TeamPushResult>;
+  /** New events of every journal in the folder since the last call (all on the first). */
+  readTeamChanges(): Promise<TeamJournalChanges[]>;
+  /** Store a raw test file by its SHA-256 (nothing happens when it is there). Returns the hash. */
+  writeTeamRaw(hash: string, bytes: Uint8Array): Promise<string>;
+  readTeamRaw(hash: string): Promise<TeamRawRead>;
+  teamFolderStatus(): Promise<TeamFolderInfo>;
+  /** Changes the folder watcher saw; returns an unsubscribe function. */
+  onTeamFolderChanged(listener: (notice: TeamFolderNotice) => void): () => void;
 }

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { openTestArchive } from './support/open';
 import { simpleFile } from './support/engine';
-import { DEMO_IMPORTER, DEMO_REVIEWER, loadBundledDemoFiles, parseDemoManifest, seedDemoArchive } from '../../src-renderer/archive/demo';
+import { DEMO_IMPORTER, DEMO_REVIEWER, demoAuthoring, loadBundledDemoFiles, parseDemoManifest, seedDemoArchive } from '../../src-renderer/archive/demo';
+import { tableCounts } from './support/open';
 
 // Demo archive plan (product choice): every review state shows, acceptance always by a
 // second engineer (four eyes), the rejection carries a reason. Files are synthetic.
@@ -58,5 +59,37 @@ describe('demo archive', () => {
     } finally {
       globalThis.fetch = originalFetch;
     }
+  });
+
+  it('should seed the same demo events on two fresh machines, so exchanging bundles adds no duplicate tests', async () => {
+    const files = () => Array.from({ length: 6 }, (_, i) => simpleFile(`hf-${i + 1}.csv`, `HF-${i + 1}`, { peak: (21 + i) * 1e6, samples: i === 2 ? 2 : 6 }));
+    const first = await openTestArchive();
+    const second = await openTestArchive();
+    expect(first.archive.deviceId()).not.toBe(second.archive.deviceId());
+    await seedDemoArchive(first.archive, { loadFiles: async () => ({ files: files(), manifest: null }) });
+    await seedDemoArchive(second.archive, { loadFiles: async () => ({ files: files(), manifest: null }) });
+    const events = await first.archive.listEvents();
+    expect(await second.archive.listEvents()).toEqual(events);
+    // Identity from the files' hashes, not from the installation or the clock.
+    const authoring = demoAuthoring(files());
+    expect(events.every((e) => e.device === authoring.device && e.id === `${e.author}@${e.device}#${e.seq}`)).toBe(true);
+    expect(events[0].time >= authoring.startTime).toBe(true);
+    expect(demoAuthoring(files().slice(1)).device).not.toBe(authoring.device);
+    const before = await tableCounts(first.archive);
+    const outcome = await first.archive.importBundle(await second.archive.exportBundle(DEMO_REVIEWER), 'demo.slbundle');
+    expect(outcome).toMatchObject({ added: 0, conflicts: [], findings: [] });
+    expect((await tableCounts(first.archive)).tests).toBe(before.tests);
+    expect((await first.archive.listTests()).map((t) => t.id).sort()).toEqual((await second.archive.listTests()).map((t) => t.id).sort());
+    // The demo sign-offs hold when the log is derived anew (four eyes, picks version).
+    expect((await first.archive.countByState()).accepted).toBeGreaterThanOrEqual(1);
+    expect(await first.archive.conflicts()).toEqual([]);
+    expect(await first.archive.findings()).toEqual([]);
+  });
+
+  it('should seed with this device when the archive already holds events', async () => {
+    const { archive } = await openTestArchive();
+    await archive.setLimits({ minimumSamples: 3 }, 'Ana Petrov', 'field standard');
+    await seedDemoArchive(archive, { loadFiles: async () => ({ files: [simpleFile('a.csv', 'HF-1')], manifest: null }) });
+    expect((await archive.listEvents()).every((e) => e.device === archive.deviceId())).toBe(true);
   });
 });

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { openTestArchive, tableCounts } from './support/open';
 import { simpleFile } from './support/engine';
-import { sha256HexAsync } from '../../src-renderer/archive/sha256';
+import { sha256HexAsync } from '../../src-renderer/archive/journal/sha256';
 import { ArchiveError } from '../../src-renderer/archive/errors';
 
 // Synthetic records: the files, wells and expected rows are set by these tests.

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { openTestArchive } from './support/open';
 import { simpleFile } from './support/engine';
 import { ArchiveError } from '../../src-renderer/archive/errors';
-import { canonicalJson, sha256HexOfText } from '../../src-renderer/archive/sha256';
+import { eventHash } from '../../src-renderer/archive/journal/journal-file';
 
 // Review policy from DESIGN.md ("Review"): four eyes, reasons for rejections, accepted picks
 // frozen and reopened on change, append-only log. Lamport clocks: L. Lamport, "Time, clocks,
@@ -106,7 +106,10 @@ describe('archive review', () => {
       for (let i = 1; i < journal.length; i++) {
         const previous = journal[i - 1];
         const { testId: _t, journal: _j, hash: _h, ...event } = previous;
-        expect(journal[i].prev).toBe(sha256HexOfText(canonicalJson(event)));
+        // The chain link is the journal's own line hash (archive/journal/journal-file.ts).
+        expect(journal[i].prev).toBe(eventHash(event));
+        expect(previous.hash).toBe(eventHash(event));
+        expect(journal[i].seq).toBe(i + 1);
       }
     }
     await expect(archive.db.events.update(rows[0].id, { author: 'Mallory' })).rejects.toBeInstanceOf(ArchiveError);

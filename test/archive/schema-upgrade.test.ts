@@ -1,7 +1,8 @@
 import 'fake-indexeddb/auto';
 import Dexie from 'dexie';
 import { describe, expect, it } from 'vitest';
-import { SCHEMA_V1, SCHEMA_V2, StressLedgerDb, CURRENT_SCHEMA_VERSION } from '../../src-renderer/archive/db';
+import { SCHEMA_V1, SCHEMA_V2, SCHEMA_V3, StressLedgerDb, CURRENT_SCHEMA_VERSION } from '../../src-renderer/archive/db';
+import { eventHash } from '../../src-renderer/archive/journal/journal-file';
 import { Archive } from '../../src-renderer/archive/archive';
 import { createTestEngine, uniqueDatabaseName } from './support/engine';
 
@@ -25,7 +26,8 @@ describe('archive schema upgrade', () => {
       mappings: 'layout',
     });
     expect(SCHEMA_V2.settings).toBe('key');
-    expect(CURRENT_SCHEMA_VERSION).toBe(2);
+    expect(SCHEMA_V3).toEqual({ ...SCHEMA_V2, journals: 'key' });
+    expect(CURRENT_SCHEMA_VERSION).toBe(3);
   });
 
   it('should open a version 1 archive with its data intact and upgraded', async () => {
@@ -56,7 +58,7 @@ describe('archive schema upgrade', () => {
     old.close();
 
     const archive = await Archive.open({ engine: createTestEngine(), db: new StressLedgerDb(name) });
-    expect(archive.db.verno).toBe(2);
+    expect(archive.db.verno).toBe(3);
     // Two of three users chose oilfield units in version 1.
     expect(await archive.getSettings()).toEqual({ limits: {}, unitSystem: 'oilfield' });
     const users = await archive.db.users.toArray();
@@ -67,6 +69,8 @@ describe('archive schema upgrade', () => {
     await archive.comment('t1', 'Ana Petrov', 'after the upgrade');
     const events = await archive.eventsForTest('t1');
     expect(events.map((e) => [e.clock, e.prev])).toEqual([[7, ''], [8, 'cd'.repeat(32)]]);
+    // The version 1 event counts as the journal's first (no number yet); the next one is 2.
+    expect(events[1].seq).toBe(2);
     // Rows intact, the new index filled.
     const [summary] = await archive.listTests({ wellSearch: 'hf-1' });
     expect(summary).toMatchObject({ id: 't1', state: 'accepted', grade: 'B', depthTvd: 2100, reviewer: 'Ben Osei' });
@@ -82,5 +86,36 @@ describe('archive schema upgrade', () => {
     expect(await archive.getSettings()).toEqual({ limits: {}, unitSystem: 'si' });
     expect(archive.deviceId()).toMatch(/^[0-9a-f-]{36}$/);
     expect(await archive.isEmpty()).toBe(true);
+  });
+
+  it('should open a version 2 archive and count its journals, so new events continue each chain', async () => {
+    const name = uniqueDatabaseName();
+    const old = new Dexie(name);
+    old.version(1).stores(SCHEMA_V1);
+    old.version(2).stores(SCHEMA_V2);
+    await old.open();
+    await old.table('settings').bulkPut([{ key: 'device', value: 'dev-a' }, { key: 'limits', value: {} }, { key: 'unitSystem', value: 'si' }]);
+    // Synthetic log: Ana on this device (one event before numbering, two numbered), Ben on another device (numbered 1 and 3: 2 missing).
+    const ana1 = { id: 'a1', author: 'Ana Petrov', device: 'dev-a', time: '2026-02-01T08:00:00.000Z', clock: 1, prev: '', body: { kind: 'comment', testId: 't1', text: 'first' } };
+    const ana2 = { id: 'a2', author: 'Ana Petrov', device: 'dev-a', time: '2026-02-01T08:01:00.000Z', clock: 2, prev: eventHash(ana1 as never), seq: 2, seen: {}, body: { kind: 'comment', testId: 't1', text: 'second' } };
+    const ben1 = { id: 'b1', author: 'Ben Osei', device: 'dev-b', time: '2026-02-01T08:02:00.000Z', clock: 3, prev: '', seq: 1, seen: {}, body: { kind: 'comment', testId: 't1', text: 'ben one' } };
+    const ben3 = { id: 'b3', author: 'Ben Osei', device: 'dev-b', time: '2026-02-01T08:04:00.000Z', clock: 9, prev: 'ef'.repeat(32), seq: 3, seen: {}, body: { kind: 'comment', testId: 't1', text: 'ben three' } };
+    for (const e of [ana1, ana2, ben1, ben3]) {
+      await old.table('events').add({ ...e, testId: 't1', journal: `${e.author}@${e.device}`, hash: eventHash(e as never) });
+    }
+    old.close();
+
+    const archive = await Archive.open({ engine: createTestEngine(), db: new StressLedgerDb(name) });
+    expect(archive.db.verno).toBe(3);
+    const journals = await archive.db.journals.orderBy('key').toArray();
+    expect(journals.map((j) => [j.key, j.seq, j.lastSeq, j.clock, j.events])).toEqual([
+      ['Ana Petrov@dev-a', 2, 2, 2, 2],
+      ['Ben Osei@dev-b', 1, 3, 9, 2],
+    ]);
+    await archive.setLimits({ minimumSamples: 3 }, 'Ana Petrov', 'field standard after the upgrade');
+    const last = (await archive.listEvents()).at(-1)!;
+    // Lamport clock: highest held + 1; seen holds Ben's journal only as far as it has no gap.
+    expect(last).toMatchObject({ seq: 3, clock: 10, prev: eventHash(ana2 as never), seen: { 'Ben Osei@dev-b': 1 } });
+    archive.close();
   });
 });

@@ -100,6 +100,13 @@ describe('web bridge', () => {
     expect(await bridge.appVersion()).toBe('0.1.0');
   });
 
+  it('should offer no team folder in the browser (teams share through bundles there)', () => {
+    // Product design: a web page cannot keep appending to a shared folder; bundles are its only channel.
+    const bridge = createWebBridge({ document: fakeDocument().document as never, window: fakeWindow().window as never, storage: null });
+    expect(bridge.teamFolder).toBeUndefined();
+    expect(bridge.platform).toBe('web');
+  });
+
   it('should send shortcut commands, leave undo to text fields, and unsubscribe', () => {
     const win = fakeWindow();
     const bridge = createWebBridge({ document: fakeDocument().document as never, window: win.window as never, storage: null });

@@ -46,4 +46,26 @@ describe('ipc-schemas', () => {
     expect(() => parsePayload(CHANNELS.appVersion, { anything: 1 })).toThrow();
     expect(() => parsePayload(CHANNELS.openFolder, 'x')).toThrow();
   });
+
+  it('should accept team folder payloads and refuse relative folders, bad hashes and malformed events', () => {
+    const event = {
+      id: 'e1', author: 'Ana Petrov', device: 'dev-a', time: '2026-02-01T08:00:00.000Z', clock: 1, prev: '', seq: 1, seen: {},
+      body: { kind: 'comment', testId: 't1', text: 'closure looks early' },
+    };
+    expect(parsePayload(CHANNELS.connectTeamFolder, { folder: '/srv/team/harrow-flats', author: 'Ana Petrov', device: 'dev-a' }).folder).toBe('/srv/team/harrow-flats');
+    expect(() => parsePayload(CHANNELS.connectTeamFolder, { folder: 'team', author: 'Ana Petrov', device: 'dev-a' })).toThrow(/absolute path/);
+    expect(() => parsePayload(CHANNELS.connectTeamFolder, { folder: '/srv/team', author: ' Ana', device: 'dev-a' })).toThrow(/author/);
+    expect(() => parsePayload(CHANNELS.connectTeamFolder, { folder: '/srv/team', author: 'Ana', device: 'dev-a', extra: 1 })).toThrow();
+    expect(parsePayload(CHANNELS.pushTeamEvents, { events: [event] }).events).toHaveLength(1);
+    expect(() => parsePayload(CHANNELS.pushTeamEvents, { events: [{ ...event, body: { kind: 'comment', testId: 't1' } }] })).toThrow(/events\.0: not a review-log event \(body\.text/);
+    expect(() => parsePayload(CHANNELS.pushTeamEvents, { events: [{ ...event, clock: -1 }] })).toThrow(/clock/);
+    // SHA-256 names are 64 lower-case hex digits (FIPS 180-4 digests are 256 bits).
+    const hash = 'ab'.repeat(32);
+    expect(parsePayload(CHANNELS.writeTeamRaw, { hash, bytes: new Uint8Array(3) }).hash).toBe(hash);
+    expect(() => parsePayload(CHANNELS.readTeamRaw, { hash: '../../etc/passwd' })).toThrow(/SHA-256/);
+    expect(() => parsePayload(CHANNELS.readTeamRaw, { hash: hash.toUpperCase() })).toThrow(/SHA-256/);
+    expect(() => parsePayload(CHANNELS.writeTeamRaw, { hash, bytes: 'AAEC' })).toThrow(/bytes/);
+    expect(parsePayload(CHANNELS.readTeamChanges, undefined)).toBeUndefined();
+    expect(() => parsePayload(CHANNELS.teamFolderStatus, { folder: '/' })).toThrow();
+  });
 });

@@ -61,4 +61,25 @@ describe('ipc handlers', () => {
     expect(await handlers.get(CHANNELS.recentFiles)!(fromApp, undefined)).toEqual(['/data/hf-1.csv']);
     expect(await handlers.get(CHANNELS.appVersion)!(fromApp, undefined)).toBe('0.1.0');
   });
+
+  it('should route the team folder calls to the host after checking them', async () => {
+    const calls: unknown[] = [];
+    const host = {
+      connect: async (o: unknown) => { calls.push(['connect', o]); return { folder: '/srv/team' }; },
+      status: () => ({ folder: '/srv/team' }),
+      readChanges: async () => [],
+      push: async (events: unknown[]) => ({ reachable: true, journals: [], count: events.length }),
+      writeRaw: async (hash: string) => hash,
+      readRaw: async () => ({ status: 'missing' }),
+    };
+    handlers.clear();
+    registerIpcHandlers({ store: store as never, refreshMenu: () => undefined, teamFolder: host as never });
+    expect(await handlers.get(CHANNELS.connectTeamFolder)!(fromApp, { folder: '/srv/team', author: 'Ana Petrov', device: 'dev-a' })).toEqual({ folder: '/srv/team' });
+    await expect(handlers.get(CHANNELS.connectTeamFolder)!(fromApp, { folder: 'relative', author: 'Ana Petrov', device: 'dev-a' })).rejects.toThrow(/Refused/);
+    await expect(handlers.get(CHANNELS.pushTeamEvents)!(fromApp, { events: [{ id: 1 }] })).rejects.toThrow(/Refused/);
+    expect(await handlers.get(CHANNELS.pushTeamEvents)!(fromApp, { events: [] })).toMatchObject({ count: 0 });
+    expect(await handlers.get(CHANNELS.readTeamRaw)!(fromApp, { hash: 'cd'.repeat(32) })).toEqual({ status: 'missing' });
+    expect(await handlers.get(CHANNELS.chooseTeamFolder)!(fromApp, undefined)).toBeNull();
+    expect(calls).toEqual([['connect', { folder: '/srv/team', author: 'Ana Petrov', device: 'dev-a' }]]);
+  });
 });

@@ -191,7 +191,8 @@ class Derivation {
         return this.importTest(n, b);
       case 'limits-changed':
         s.limitsLog.push({ eventId: e.id, author: e.author, time: e.time, scope: b.scope, limits: b.limits, reason: b.reason });
-        if (b.scope === 'project') { Object.assign(s.projectLimits, b.limits); return; }
+        // The archive's setLimits replaces the project limits whole, so the log's latest project change is the set in force.
+        if (b.scope === 'project') { s.projectLimits = { ...b.limits }; return; }
         return this.withTest(n, b.scope.testId, (test, track) => {
           Object.assign(test.limits, b.limits);
           this.log(test, e, b.reason);

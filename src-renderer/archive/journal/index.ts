@@ -33,6 +33,13 @@
  *   conflict keeps one pick.
  * - Events without `seq`/`seen` (made before journals existed) are ordered by the total
  *   order alone and never reported as conflicts.
+ * - The Dexie archive (archive/archive.ts) makes its events with `seq`, `seen` (from its
+ *   journals table: per journal, the highest `seq` held without a gap) and the row hash
+ *   `eventHash(e)`; a sign-off's `picksVersion` is `picksVersionForTest` over the events
+ *   inside that `seen`. `Archive.applyEvents` merges, stores and rebuilds its tables from
+ *   `deriveArchiveState`.
+ * - A project `limits-changed` replaces the project limits whole (as the archive's
+ *   setLimits does), rather than adding to them.
  */
 export { sha256Hex, sha256OfText, sha256HexAsync } from './sha256';
 export { canonicalJson } from './canonical';

@@ -16,7 +16,7 @@ const BODY_FIELDS: Record<string, Record<string, FieldCheck>> = {
   'survey-set': { wellId: 'string', stations: 'stations', sourceFile: 'string?' },
   'test-imported': {
     testId: 'string', wellId: 'string', type: 'testType', typeInferred: 'boolean', metadata: 'object',
-    fileHash: 'string', fileName: 'string', layout: 'string',
+    fileHash: 'string', fileName: 'string', layout: 'string', parseOptions: 'object?',
   },
   'pick-moved': { testId: 'string', cycle: 'number', pickKind: 'pickKind', pick: 'pick?', reason: 'string' },
   'picks-reset': { testId: 'string', reason: 'string' },

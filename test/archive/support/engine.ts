@@ -13,14 +13,18 @@ import type { AnalysisResult, Grade, Pick } from '../../../src-renderer/engine/r
 
 export interface TestEngine extends ArchiveEngine {
   calls: { parse: number; analyse: number };
+  /** The options of every parse call, in order. */
+  parseOptions: unknown[];
   failAnalyseFor?: string;
 }
 
 export function createTestEngine(): TestEngine {
   const engine: TestEngine = {
     calls: { parse: 0, analyse: 0 },
-    async parse(bytes, fileName) {
+    parseOptions: [],
+    async parse(bytes, fileName, options) {
       engine.calls.parse += 1;
+      engine.parseOptions.push(options);
       return parseSimpleCsv(new TextDecoder().decode(bytes), fileName);
     },
     analyse(record, options) {
