@@ -1,0 +1,275 @@
+/**
+ * The regional stress model screen: the depth plot (TVD down) of Sv, Pp, the Shmin trend
+ * from accepted tests with its bands, SHmax bounds and the tests themselves; the choice of
+ * field and wells, axis (pressure / gradient / EMW), model inputs, and the CSV / XLSX
+ * export of the stress table. The logic lives in engine/model and engine/export; this
+ * component only holds the choices and draws.
+ */
+import { useMemo, useState } from 'react';
+import { ChartView } from '../../components/ChartView';
+import { SafetyNote } from '../../components/Badges';
+import { fromDisplay, toDisplay, unitLabel, type UnitSystem } from '../../format/units';
+import { stressTableCsv } from '../../../engine/export/csv';
+import { stressTableXlsx } from '../../../engine/export/xlsx';
+import { porePressureFromGradient } from '../../../engine/model/pore-pressure';
+import { buildRegionalModel, stressTable, type ModelTestInput, type RegionalModel, type StressTableRow } from '../../../engine/model/regional-model';
+import { parseLasFile } from '../../../engine/import/lasImport';
+import type { DepthLog } from '../../../engine/record';
+import { intervalsFromBreaks } from '../../../engine/model/trend-intervals';
+import { verticalStressFromDensityLog, verticalStressFromGradient } from '../../../engine/model/vertical-stress';
+import { mdAtTvd, minimumCurvature, tvdAtMd } from '../../../engine/analysis/survey';
+import { depthPlotOption, wellColors, GRADE_SYMBOL, type DepthAxisMode } from './depthPlotOption';
+
+/** Elevations of a well, m (rig floor above sea level or ground; water depth offshore). */
+export interface ModelWell {
+  name: string; fieldName: string; rigFloorElevation?: number; waterDepth?: number;
+  /** Directional survey (MD m, inclination and azimuth in degrees); gives the table's MD column when this well alone is chosen. */
+  survey?: { md: number; inc: number; azi: number }[];
+}
+
+/** Props of {@link StressModelScreen}. All values SI. */
+export interface StressModelScreenProps {
+  /** Every test on offer, in any review state; only accepted tests are fitted. */
+  tests: ModelTestInput[];
+  /** Display unit system (SI or oilfield). */
+  units: UnitSystem;
+  /** Opens a test, called with its id when its point or row is clicked. */
+  onOpenTest: (testId: string) => void;
+  /** Saves export bytes: the bridge's saveFile (native dialog in Electron, download on the web). */
+  saveFile: (suggestedName: string, bytes: Uint8Array, mimeType: string) => Promise<string | null>;
+  /** Application version written into the export provenance. */
+  appVersion: string;
+  /** Who exports, written into the provenance. */
+  user?: string;
+  /** Well elevations, to prefill rig floor and water depth when one well is chosen. */
+  wells?: ModelWell[];
+  /** Short message to the user (export saved, failed). */
+  notify?: (text: string) => void;
+  /** True while the tests are being loaded. */
+  loading?: boolean;
+  /** Lets the user pick a bulk-density log (LAS) for Sv: the bridge's openFiles. Without it the screen offers gradients only. */
+  openFiles?: (options: { accept?: string[]; multiple?: boolean }) => Promise<{ name: string; bytes: Uint8Array }[]>;
+}
+
+const CSV_MIME = 'text/csv';
+const XLSX_MIME = 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet';
+const ONE_PSI_PER_FT = 22_620.6;
+
+function numberInput(value: string): number | null {
+  const v = Number(value.replace(',', '.'));
+  return Number.isFinite(v) ? v : null;
+}
+
+/** The depth-plot screen of the regional stress model. */
+export function StressModelScreen(props: StressModelScreenProps) {
+  const { tests, units, onOpenTest, saveFile, appVersion, user, wells = [], notify, loading, openFiles } = props;
+  const [densityLog, setDensityLog] = useState<DepthLog | null>(null);
+  const fields = useMemo(() => [...new Set(tests.map((t) => t.field))].sort(), [tests]);
+  const [field, setField] = useState<string>('');
+  const activeField = field || fields[0] || '';
+  const fieldWells = useMemo(() => [...new Set(tests.filter((t) => t.field === activeField).map((t) => t.well))].sort(), [tests, activeField]);
+  const [unchecked, setUnchecked] = useState<Set<string>>(new Set());
+  const chosenWells = useMemo(() => fieldWells.filter((w) => !unchecked.has(w)), [fieldWells, unchecked]);
+  const [mode, setMode] = useState<DepthAxisMode>('pressure');
+  const [showUnaccepted, setShowUnaccepted] = useState(false);
+  const [showReferences, setShowReferences] = useState(false);
+  const [friction, setFriction] = useState('0.6');
+  const [svGradient, setSvGradient] = useState(() => toDisplay(units, 'gradient', ONE_PSI_PER_FT).toFixed(units === 'si' ? 2 : 3));
+  const [ppGradient, setPpGradient] = useState(() => toDisplay(units, 'gradient', 10_000).toFixed(units === 'si' ? 2 : 3));
+  const single = chosenWells.length === 1 ? wells.find((w) => w.name === chosenWells[0] && (w.fieldName === activeField || !w.fieldName)) : undefined;
+  const [waterDepth, setWaterDepth] = useState('');
+  const [rigFloor, setRigFloor] = useState('');
+  const [step, setStep] = useState(units === 'si' ? '100' : '500');
+  const [breaks, setBreaks] = useState('');
+  const [busy, setBusy] = useState(false);
+
+  const built = useMemo((): { model: RegionalModel; rows: StressTableRow[] } | { error: string } | null => {
+    if (!activeField) return null;
+    try {
+      const wd = numberInput(waterDepth) ?? (single?.waterDepth !== undefined ? toDisplay(units, 'depth', single.waterDepth) : 0);
+      const rf = numberInput(rigFloor) ?? (single?.rigFloorElevation !== undefined ? toDisplay(units, 'depth', single.rigFloorElevation) : 0);
+      const overburden = { waterDepth: fromDisplay(units, 'depth', wd), rigFloorElevation: fromDisplay(units, 'depth', rf) };
+      const path = single?.survey && single.survey.length > 1
+        ? minimumCurvature(single.survey, { tvd: single.survey[0].md, north: 0, east: 0 })
+        : null;
+      const sv = densityLog
+        ? verticalStressFromDensityLog(densityLog, { ...overburden, indexToTvd: path && densityLog.indexKind !== 'tvd' ? (md) => tvdAtMd(path, md) ?? md : undefined })
+        : verticalStressFromGradient(fromDisplay(units, 'gradient', numberInput(svGradient) ?? NaN), overburden);
+      const pp = porePressureFromGradient(fromDisplay(units, 'gradient', numberInput(ppGradient) ?? NaN), overburden.rigFloorElevation);
+      const breakDepths = breaks.split(/[;,\s]+/).filter((b) => b !== '').map((b) => fromDisplay(units, 'depth', numberInput(b) ?? NaN));
+      const model = buildRegionalModel(tests, {
+        field: activeField, wells: chosenWells, acceptedOnly: true, minGrade: 'D',
+        frictionCoefficient: numberInput(friction) ?? NaN, verticalStress: sv, porePressure: pp, overburden,
+        trend: breakDepths.length ? { shape: { kind: 'intervals', intervals: intervalsFromBreaks(breakDepths) } } : undefined,
+      });
+      const stepM = fromDisplay(units, 'depth', numberInput(step) ?? NaN);
+      const depths = model.tests.filter((t) => t.tvd !== null && t.field === activeField).map((t) => t.tvd!);
+      const deepest = depths.length ? Math.max(...depths) : 3000;
+      const to = Math.max(stepM * 2, Math.ceil((deepest * 1.1) / stepM) * stepM);
+      const rows = stressTable(model, { from: stepM, to, step: stepM, well: single?.name, mdAtTvd: path ? (z) => mdAtTvd(path, z) : undefined });
+      return { model, rows };
+    } catch (e) {
+      return { error: e instanceof Error ? e.message : String(e) };
+    }
+  }, [tests, activeField, chosenWells, friction, svGradient, ppGradient, waterDepth, rigFloor, step, units, single, densityLog, breaks]);
+
+  async function loadDensityLog() {
+    if (!openFiles) return;
+    try {
+      const [file] = await openFiles({ accept: ['.las'], multiple: false });
+      if (!file) return;
+      const parsed = parseLasFile(file.bytes, file.name);
+      if (parsed.kind !== 'log') throw new Error(`${file.name} is indexed by time, not depth`);
+      setDensityLog(parsed.log);
+    } catch (e) {
+      notify?.(`The density log could not be used: ${e instanceof Error ? e.message : String(e)}`);
+    }
+  }
+
+  const option = useMemo(() => (built && 'model' in built ? depthPlotOption(built.model, built.rows, { mode, units, showUnaccepted, showReferences }) : null), [built, mode, units, showUnaccepted, showReferences]);
+
+  async function exportTable(format: 'csv' | 'xlsx') {
+    if (!built || !('model' in built)) return;
+    setBusy(true);
+    try {
+      const date = new Date().toISOString();
+      const context = { appVersion, date, unitSystem: units, title: `${activeField} regional stress table`, author: user };
+      const bytes = format === 'csv'
+        ? new TextEncoder().encode(stressTableCsv(built.model, built.rows, context))
+        : await stressTableXlsx(built.model, built.rows, context);
+      const name = `stress-table-${activeField.replace(/[^A-Za-z0-9-]+/g, '-').toLowerCase()}-${date.slice(0, 10)}.${format}`;
+      const saved = await saveFile(name, bytes, format === 'csv' ? CSV_MIME : XLSX_MIME);
+      if (saved) notify?.(`Saved ${saved}`);
+    } catch (e) {
+      notify?.(`Export failed: ${e instanceof Error ? e.message : String(e)}`);
+    } finally {
+      setBusy(false);
+    }
+  }
+
+  const model = built && 'model' in built ? built.model : null;
+  const seg = model?.trend.segments[0];
+  const colors = model ? wellColors(model) : new Map<string, string>();
+  const shownTests = model ? model.tests.filter((t) => t.field === activeField && chosenWells.includes(t.well) && (showUnaccepted || t.state === 'accepted')) : [];
+  const hiddenCount = model ? model.tests.filter((t) => t.field === activeField && chosenWells.includes(t.well) && t.state !== 'accepted').length : 0;
+  const pu = unitLabel(units, 'pressure');
+  const hasMd = !!built && 'rows' in built && built.rows.some((r) => r.md !== null);
+  const p = (v: number | null) => (v === null ? '–' : toDisplay(units, 'pressure', v).toFixed(units === 'si' ? 2 : 0));
+
+  return (
+    <div className="page" data-testid="screen-model">
+      <div className="page-head">
+        <div>
+          <h1>Stress model</h1>
+          <p className="sub">Shmin trend from accepted tests (weighted by grade), SHmax bounds, Sv and Pp against TVD.</p>
+        </div>
+        <div className="spacer" />
+        <button type="button" className="btn" data-testid="export-csv" disabled={!model || busy} onClick={() => void exportTable('csv')}>Export CSV</button>
+        <button type="button" className="btn primary" data-testid="export-xlsx" disabled={!model || busy} onClick={() => void exportTable('xlsx')}>Export XLSX</button>
+      </div>
+
+      {loading && <p className="hint" aria-busy="true">Loading tests…</p>}
+      {!loading && fields.length === 0 && <div className="panel empty">No tests in the archive yet.</div>}
+
+      {fields.length > 0 && (
+        <div className="panel tight stack">
+          <div className="row">
+            <label>Field{' '}
+              <select value={activeField} data-testid="model-field" onChange={(e) => { setField(e.target.value); setUnchecked(new Set()); }}>
+                {fields.map((f) => <option key={f} value={f}>{f || '(no field)'}</option>)}
+              </select>
+            </label>
+            <span className="hint">Wells:</span>
+            {fieldWells.map((w) => (
+              <label key={w} className="row" style={{ gap: 4 }}>
+                <input type="checkbox" checked={!unchecked.has(w)} data-testid={`model-well-${w}`}
+                  onChange={(e) => { const next = new Set(unchecked); if (e.target.checked) next.delete(w); else next.add(w); setUnchecked(next); }} />
+                <span aria-hidden="true" style={{ display: 'inline-block', width: 10, height: 10, background: colors.get(w), borderRadius: 2 }} />{w}
+              </label>
+            ))}
+          </div>
+          <div className="row" role="group" aria-label="Axis">
+            <span className="hint">Axis:</span>
+            {(['pressure', 'gradient', 'emw'] as const).map((m) => (
+              <button key={m} type="button" className="tab" aria-selected={mode === m} data-testid={`model-axis-${m}`} onClick={() => setMode(m)}>
+                {m === 'pressure' ? `Pressure (${unitLabel(units, 'pressure')})` : m === 'gradient' ? `Gradient (${unitLabel(units, 'gradient')})` : `EMW (${unitLabel(units, 'emw')})`}
+              </button>
+            ))}
+            <label className="row" style={{ gap: 4 }}>
+              <input type="checkbox" checked={showUnaccepted} data-testid="model-show-unaccepted" onChange={(e) => setShowUnaccepted(e.target.checked)} />
+              Show rejected and unreviewed tests ({hiddenCount}), not fitted
+            </label>
+            <label className="row" style={{ gap: 4 }}>
+              <input type="checkbox" checked={showReferences} data-testid="model-show-references" onChange={(e) => setShowReferences(e.target.checked)} />
+              Reference correlations (Breckels &amp; van Eekelen, Eaton)
+            </label>
+          </div>
+          <div className="row">
+            {densityLog
+              ? <span data-testid="model-density-log">Sv from density log {densityLog.fileName} <button type="button" className="btn small" onClick={() => setDensityLog(null)}>Use a gradient</button></span>
+              : <label>Sv gradient [{unitLabel(units, 'gradient')}] <input size={6} value={svGradient} onChange={(e) => setSvGradient(e.target.value)} data-testid="model-sv-gradient" /></label>}
+            {openFiles && !densityLog && <button type="button" className="btn small" onClick={() => void loadDensityLog()} data-testid="model-load-density">Sv from density log (LAS)…</button>}
+            <label>Pp gradient [{unitLabel(units, 'gradient')}] <input size={6} value={ppGradient} onChange={(e) => setPpGradient(e.target.value)} data-testid="model-pp-gradient" /></label>
+            <label>Friction μ <input size={4} value={friction} onChange={(e) => setFriction(e.target.value)} data-testid="model-friction" /></label>
+            <label>Water depth [{unitLabel(units, 'depth')}] <input size={6} value={waterDepth} placeholder={single?.waterDepth !== undefined ? toDisplay(units, 'depth', single.waterDepth).toFixed(0) : '0'} onChange={(e) => setWaterDepth(e.target.value)} /></label>
+            <label>Rig floor [{unitLabel(units, 'depth')}] <input size={6} value={rigFloor} placeholder={single?.rigFloorElevation !== undefined ? toDisplay(units, 'depth', single.rigFloorElevation).toFixed(0) : '0'} onChange={(e) => setRigFloor(e.target.value)} /></label>
+            <label>Table step [{unitLabel(units, 'depth')}] <input size={5} value={step} onChange={(e) => setStep(e.target.value)} data-testid="model-step" /></label>
+            <label title="TVDs where the trend is split into separate lines, e.g. 1500, 2500">Trend breaks [{unitLabel(units, 'depth')}] <input size={10} value={breaks} placeholder="none" onChange={(e) => setBreaks(e.target.value)} data-testid="model-breaks" /></label>
+          </div>
+        </div>
+      )}
+
+      {built && 'error' in built && <div className="notice bad" role="alert" data-testid="model-error">{built.error}</div>}
+
+      {model && (
+        <>
+          <div className="panel tight" data-testid="model-trend">
+            {model.trend.segments.length > 1 && model.trend.segments.map((sg) => (
+              <div key={sg.name}>{sg.name}: Shmin = {toDisplay(units, 'pressure', sg.intercept).toFixed(units === 'si' ? 2 : 0)} {unitLabel(units, 'pressure')} + {toDisplay(units, 'gradient', sg.gradient).toFixed(units === 'si' ? 2 : 3)} {unitLabel(units, 'gradient')} × TVD · R² {sg.r2.toFixed(3)} · n {sg.n}</div>
+            ))}
+            {model.trend.segments.length > 1 ? null : seg
+              ? <span>Shmin = {toDisplay(units, 'pressure', seg.intercept).toFixed(units === 'si' ? 2 : 0)} {unitLabel(units, 'pressure')} + {toDisplay(units, 'gradient', seg.gradient).toFixed(units === 'si' ? 2 : 3)} {unitLabel(units, 'gradient')} × TVD · R² {seg.r2.toFixed(3)} · n {seg.n} · {(model.trend.confidence * 100).toFixed(0)} % bands</span>
+              : <span>No Shmin trend: {model.trend.provenance.filter((x) => x.startsWith('No trend')).join(' ') || 'no accepted tests with a Shmin value.'}</span>}
+            {model.cautions.slice(1).map((c) => <p key={c} className="shmax-caution">{c}</p>)}
+          </div>
+          <ChartView option={option} label="Depth plot of the regional stress model" testId="model-depth-plot" className="chart-box"
+            onPickClick={(id) => onOpenTest(id)} />
+          <p className="hint">
+            Marker shape = grade ({Object.entries(GRADE_SYMBOL).map(([g, s]) => `${g} ${s}`).join(', ')}); colour = well; arrow = FIT lower bound (never fitted);
+            star = SHmax from reopening (indicative); hollow grey = not accepted; dark ring = outlier of the trend. Click a point to open its test.
+          </p>
+          <div className="panel tight">
+            <table className="grid-table" data-testid="model-tests">
+              <thead><tr><th>Well</th><th>File</th><th>TVD [{unitLabel(units, 'depth')}]</th><th>Shmin [{unitLabel(units, 'pressure')}]</th><th>Grade</th><th>State</th><th>Signed off by</th><th>In fit</th></tr></thead>
+              <tbody>
+                {shownTests.map((t) => (
+                  <tr key={t.testId} data-testid="model-test-row">
+                    <td>{t.well}</td>
+                    <td><button type="button" className="btn link" onClick={() => onOpenTest(t.testId)}>{t.file}</button></td>
+                    <td>{t.tvd === null ? '–' : toDisplay(units, 'depth', t.tvd).toFixed(0)}</td>
+                    <td>{p(t.shmin?.value ?? null)}{t.shmin && t.shmin.kind !== 'estimate' ? ` (${t.shmin.kind})` : ''}</td>
+                    <td>{t.grade}</td><td>{t.state}</td><td>{t.state === 'accepted' ? t.reviewer ?? '–' : '–'}</td>
+                    <td>{t.used ? (t.outlier ? 'yes, outlier' : 'yes') : `no${t.reason ? `: ${t.reason}` : t.role === 'lower-bound' ? ': lower bound' : ''}`}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+          <details className="panel tight">
+            <summary>Stress table ({built && 'rows' in built ? built.rows.length : 0} rows) and provenance</summary>
+            <table className="grid-table" data-testid="model-table">
+              <thead><tr><th>TVD [{unitLabel(units, 'depth')}]</th>{hasMd && <th>MD [{unitLabel(units, 'depth')}]</th>}<th>Pp [{pu}]</th><th>Shmin [{pu}]</th><th>Shmin low–high [{pu}]</th><th>SHmax high [{pu}]</th><th>Sv [{pu}]</th><th>Regime</th></tr></thead>
+              <tbody>
+                {built && 'rows' in built && built.rows.map((r) => (
+                  <tr key={r.tvd}><td>{toDisplay(units, 'depth', r.tvd).toFixed(0)}</td>{hasMd && <td>{r.md === null ? '–' : toDisplay(units, 'depth', r.md).toFixed(0)}</td>}<td>{p(r.pp)}</td><td>{p(r.shmin)}</td><td>{p(r.shminLow)}–{p(r.shminHigh)}</td><td>{p(r.shmaxHigh)}</td><td>{p(r.sv)}</td><td>{r.regime ?? '–'}</td></tr>
+                ))}
+              </tbody>
+            </table>
+            <ul>{model.provenance.map((x) => <li key={x} className="hint">{x}</li>)}</ul>
+          </details>
+        </>
+      )}
+      <SafetyNote />
+    </div>
+  );
+}

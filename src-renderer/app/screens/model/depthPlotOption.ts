@@ -1,0 +1,196 @@
+/**
+ * The depth plot of the regional stress model as an ECharts option: TVD increasing
+ * downward; Sv, Pp, the Shmin trend with its confidence and prediction bands, the SHmax
+ * frictional upper bound; each test's Shmin as a point whose shape is its grade and whose
+ * colour is its well; FIT lower bounds as right-pointing arrows; reopening SHmax as stars;
+ * rejected and unreviewed tests (when asked for) as hollow grey symbols. The x axis shows
+ * pressure, gradient (P / TVD) or equivalent mud weight in the chosen units.
+ *
+ * Colours follow a palette chosen to stay apart under common colour-vision deficiencies
+ * (Okabe & Ito 2008, "Color Universal Design"); every distinction is also carried by line
+ * dash or marker shape.
+ */
+import type { ChartOption, LineSeriesOption, ScatterSeriesOption } from '../../charts/echarts';
+import { breckelsVanEekelen, eatonShmin } from '../../../engine/model/correlations';
+import type { RegionalModel, StressTableRow } from '../../../engine/model/regional-model';
+import type { Grade } from '../../../engine/result';
+import { emwFromPressure } from '../../../engine/units/mudWeight';
+import { fromSI } from '../../../engine/units/units';
+import type { UnitSystem } from '../../../engine/units/unitSystem';
+
+export type DepthAxisMode = 'pressure' | 'gradient' | 'emw';
+
+/** Line styles of the model curves. */
+export const CURVE_STYLE = {
+  sv: { color: '#1a1a1a', dash: 'solid' as const, width: 2.5, name: 'Sv (vertical stress)' },
+  pp: { color: '#0072B2', dash: 'dashed' as const, width: 2, name: 'Pp (pore pressure)' },
+  shmin: { color: '#D55E00', dash: 'solid' as const, width: 2.5, name: 'Shmin trend' },
+  confidence: { color: '#D55E00', dash: [6, 4] as number[], width: 1.2, name: 'Shmin trend confidence band' },
+  prediction: { color: '#D55E00', dash: 'dotted' as const, width: 1.2, name: 'Shmin prediction band' },
+  shmaxHigh: { color: '#009E73', dash: [10, 4, 2, 4] as number[], width: 2, name: 'SHmax upper bound (frictional limit)' },
+  breckels: { color: '#7a7a7a', dash: [2, 3] as number[], width: 1.2, name: 'Breckels & van Eekelen 1982 (reference)' },
+  eaton: { color: '#7a7a7a', dash: [8, 3] as number[], width: 1.2, name: 'Eaton 1969, ν 0.25 (reference)' },
+};
+
+/** Poisson's ratio of the Eaton reference curve (a common-practice mid value for shales and sands). */
+export const EATON_REFERENCE_POISSON = 0.25;
+
+/** Marker shape per grade (shape carries the grade; colour carries the well). */
+export const GRADE_SYMBOL: Record<Grade, string> = {
+  A: 'circle',
+  B: 'rect',
+  C: 'triangle',
+  D: 'diamond',
+  E: 'pin',
+};
+
+/** Right-pointing arrow: a FIT lower bound (the true Shmin lies to the right). */
+export const LOWER_BOUND_SYMBOL = 'path://M0,3 L6,3 L6,0 L10,5 L6,10 L6,7 L0,7 Z';
+/** Left-pointing arrow: an upper bound. */
+export const UPPER_BOUND_SYMBOL = 'path://M10,3 L4,3 L4,0 L0,5 L4,10 L4,7 L10,7 Z';
+/** Five-point star: SHmax from the reopening relation. */
+export const REOPENING_SYMBOL = 'path://M5,0 L6.2,3.6 L10,3.8 L7,6.1 L8.1,10 L5,7.8 L1.9,10 L3,6.1 L0,3.8 L3.8,3.6 Z';
+
+/** Well colours (Okabe-Ito order, black last), reused cyclically. */
+export const WELL_COLORS = ['#E69F00', '#56B4E9', '#CC79A7', '#0072B2', '#009E73', '#D55E00', '#F0E442', '#000000'];
+/** Hidden-by-default tests (rejected, not yet accepted) when shown. */
+export const HIDDEN_TEST_COLOR = '#8a8f98';
+
+export interface DepthPlotView {
+  mode: DepthAxisMode;
+  units: UnitSystem;
+  /** Show rejected and not-yet-accepted tests (hollow, grey). */
+  showUnaccepted: boolean;
+  /** Draw the published correlations (Breckels & van Eekelen, Eaton) for comparison. */
+  showReferences?: boolean;
+}
+
+/** Axis units and a converter from (pressure Pa, TVD m) to the x value shown. */
+export function axisUnits(view: Pick<DepthPlotView, 'mode' | 'units'>): { x: string; depth: string; convert: (p: number, tvd: number) => number | null } {
+  const si = view.units === 'si';
+  const depth = si ? 'm' : 'ft';
+  if (view.mode === 'pressure') {
+    const unit = si ? 'MPa' : 'psi';
+    return { x: unit, depth, convert: (p) => fromSI(p, unit, 'pressure') };
+  }
+  if (view.mode === 'gradient') {
+    const unit = si ? 'kPa/m' : 'psi/ft';
+    return { x: unit, depth, convert: (p, z) => (z > 0 ? fromSI(p / z, unit, 'gradient') : null) };
+  }
+  const unit = si ? 'sg' : 'ppg';
+  return { x: `${unit} EMW`, depth, convert: (p, z) => (z > 0 ? fromSI(emwFromPressure(p, z), unit, 'density') : null) };
+}
+
+/** The wells of a model in a stable order, each with its colour. */
+export function wellColors(model: RegionalModel): Map<string, string> {
+  const wells = [...new Set(model.tests.map((t) => t.well))].sort();
+  return new Map(wells.map((w, i) => [w, WELL_COLORS[i % WELL_COLORS.length]]));
+}
+
+function curve(id: string, rows: StressTableRow[], pick: (r: StressTableRow) => number | null, style: { color: string; dash: 'solid' | 'dashed' | 'dotted' | number[]; width: number; name: string }, toX: (p: number, z: number) => number | null, toDepth: (z: number) => number): LineSeriesOption {
+  const data: (number | null)[][] = [];
+  for (const r of rows) {
+    const p = pick(r);
+    const x = p === null ? null : toX(p, r.tvd);
+    data.push(x === null ? [null, toDepth(r.tvd)] : [x, toDepth(r.tvd)]);
+  }
+  return {
+    id, name: style.name, type: 'line', data: data as LineSeriesOption['data'], symbol: 'none', showSymbol: false, connectNulls: false,
+    lineStyle: { color: style.color, type: style.dash as 'solid', width: style.width }, itemStyle: { color: style.color },
+    emphasis: { disabled: true }, z: 2,
+  };
+}
+
+/**
+ * Builds the depth-plot option.
+ *
+ * @param model the fitted model (its tests carry state, grade, role, outlier).
+ * @param rows the stress table sampled for the curves.
+ * @param view axis mode, units, whether unaccepted tests are shown.
+ * @returns an ECharts option; test points are in series with ids starting "pick-test"
+ *   whose datum names are test ids (the screen opens a test on click).
+ */
+export function depthPlotOption(model: RegionalModel, rows: StressTableRow[], view: DepthPlotView): ChartOption {
+  const axis = axisUnits(view);
+  const toDepth = (z: number) => fromSI(z, axis.depth, 'length');
+  const colors = wellColors(model);
+  const series: (LineSeriesOption | ScatterSeriesOption)[] = [
+    curve('sv', rows, (r) => r.sv, CURVE_STYLE.sv, axis.convert, toDepth),
+    curve('pp', rows, (r) => r.pp, CURVE_STYLE.pp, axis.convert, toDepth),
+    curve('shmin', rows, (r) => r.shmin, CURVE_STYLE.shmin, axis.convert, toDepth),
+    curve('shmin-conf-low', rows, (r) => r.shminConfidenceLow, CURVE_STYLE.confidence, axis.convert, toDepth),
+    curve('shmin-conf-high', rows, (r) => r.shminConfidenceHigh, { ...CURVE_STYLE.confidence }, axis.convert, toDepth),
+    curve('shmin-pred-low', rows, (r) => r.shminLow, CURVE_STYLE.prediction, axis.convert, toDepth),
+    curve('shmin-pred-high', rows, (r) => r.shminHigh, { ...CURVE_STYLE.prediction }, axis.convert, toDepth),
+    curve('shmax-high', rows, (r) => r.shmaxHigh, CURVE_STYLE.shmaxHigh, axis.convert, toDepth),
+  ];
+  if (view.showReferences) {
+    // B&vE is defined to 50,000 ft (its own range check); Eaton from the model's Sv and Pp.
+    series.push(curve('ref-breckels', rows, (r) => (r.tvd > 0 && r.tvd <= 15_240 ? breckelsVanEekelen(r.tvd, r.pp) : null), CURVE_STYLE.breckels, axis.convert, toDepth));
+    series.push(curve('ref-eaton', rows, (r) => (r.sv > r.pp ? eatonShmin(r.sv, r.pp, EATON_REFERENCE_POISSON) : null), CURVE_STYLE.eaton, axis.convert, toDepth));
+  }
+  const groups = new Map<string, { name: string; symbol: string; hollow: boolean; data: { name: string; value: number[]; itemStyle: Record<string, unknown>; tip: string }[] }>();
+  for (const t of model.tests) {
+    if (!t.shmin || t.tvd === null || !(t.tvd > 0)) continue;
+    if ((model.field !== null && t.field !== model.field) || (model.wells && !model.wells.includes(t.well))) continue;
+    const accepted = t.state === 'accepted';
+    if (!accepted && !view.showUnaccepted) continue;
+    const x = axis.convert(t.shmin.value, t.tvd);
+    if (x === null) continue;
+    const bound = t.shmin.kind !== 'estimate';
+    const symbol = t.shmin.kind === 'lower-bound' ? LOWER_BOUND_SYMBOL : t.shmin.kind === 'upper-bound' ? UPPER_BOUND_SYMBOL : GRADE_SYMBOL[t.grade];
+    const key = `${accepted ? 'a' : 'u'}-${bound ? t.shmin.kind : t.grade}`;
+    const name = accepted
+      ? bound ? (t.shmin.kind === 'lower-bound' ? 'Shmin lower bound (FIT)' : 'Shmin upper bound') : `Test grade ${t.grade}`
+      : 'Not accepted (rejected or in review)';
+    const g = groups.get(key) ?? { name, symbol, hollow: !accepted, data: [] };
+    const color = accepted ? colors.get(t.well)! : HIDDEN_TEST_COLOR;
+    const tip = `${t.well} · ${t.file}<br/>Shmin ${x.toFixed(view.mode === 'pressure' && view.units === 'oilfield' ? 0 : 3)} ${axis.x} (${t.shmin.kind}, from ${t.shmin.from})<br/>TVD ${toDepth(t.tvd).toFixed(1)} ${axis.depth} · grade ${t.grade} · ${t.state}${t.reviewer ? ` · signed off by ${t.reviewer}` : ''}${t.outlier ? '<br/><b>Outlier of the trend</b>' : ''}${t.used ? '' : `<br/>Not fitted${t.reason ? `: ${t.reason}` : ''}`}`;
+    g.data.push({
+      name: t.testId, value: [x, toDepth(t.tvd)], tip,
+      itemStyle: accepted
+        ? { color, borderColor: t.outlier ? '#1a1a1a' : '#ffffff', borderWidth: t.outlier ? 2.5 : 1 }
+        : { color: 'rgba(255,255,255,0)', borderColor: color, borderWidth: 1.5, borderType: 'dashed' },
+    });
+    groups.set(key, g);
+  }
+  for (const [key, g] of groups) {
+    series.push({
+      id: `pick-test-${key}`, name: g.name, type: 'scatter', symbol: g.symbol, symbolSize: 12,
+      data: g.data.map((d) => ({ name: d.name, value: d.value, itemStyle: d.itemStyle, tip: d.tip })) as ScatterSeriesOption['data'],
+      itemStyle: g.hollow ? { color: 'rgba(255,255,255,0)', borderColor: HIDDEN_TEST_COLOR } : { color: '#555555' },
+      z: 5, cursor: 'pointer',
+    });
+  }
+  if (model.reopeningPoints.length) {
+    series.push({
+      id: 'pick-test-reopening', name: 'SHmax from reopening (indicative)', type: 'scatter', symbol: REOPENING_SYMBOL, symbolSize: 15,
+      data: model.reopeningPoints.map((p) => {
+        const x = axis.convert(p.shmax, p.tvd);
+        return {
+          name: p.testId, value: [x ?? NaN, toDepth(p.tvd)],
+          itemStyle: { color: colors.get(p.well) ?? '#009E73', borderColor: '#1a1a1a', borderWidth: 1 },
+          tip: `${p.well}: SHmax ${x === null ? '-' : x.toFixed(3)} ${axis.x} (reopening relation)<br/>${p.cautions.map((c) => `• ${c}`).join('<br/>')}`,
+        };
+      }) as ScatterSeriesOption['data'],
+      z: 6, cursor: 'pointer',
+    });
+  }
+  return {
+    animation: false,
+    grid: { left: 70, right: 24, top: 64, bottom: 48 },
+    legend: { top: 4, type: 'scroll', textStyle: { fontSize: 11 } },
+    tooltip: {
+      trigger: 'item', confine: true,
+      formatter: (p: unknown) => {
+        const d = (p as { data?: { tip?: string }; seriesName?: string; value?: number[] });
+        if (d.data?.tip) return d.data.tip;
+        const v = d.value;
+        return v ? `${d.seriesName}: ${Number(v[0]).toFixed(3)} ${axis.x} at ${Number(v[1]).toFixed(0)} ${axis.depth}` : String(d.seriesName ?? '');
+      },
+    },
+    xAxis: { type: 'value', name: view.mode === 'pressure' ? `Pressure [${axis.x}]` : view.mode === 'gradient' ? `Gradient [${axis.x}]` : `Equivalent mud weight [${axis.x}]`, nameLocation: 'middle', nameGap: 28, position: 'top', scale: view.mode !== 'pressure' },
+    yAxis: { type: 'value', name: `TVD [${axis.depth}]`, inverse: true, nameLocation: 'middle', nameGap: 50, min: 0 },
+    series,
+  } as ChartOption;
+}

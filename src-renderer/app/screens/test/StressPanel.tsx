@@ -1,0 +1,53 @@
+import type { StressEstimates } from '../../../engine/result';
+import type { UnitSystem } from '../../../engine/units/unitSystem';
+import { equivalentMudDensity, formatQuantity, formatSignificant } from '../../format/units';
+import { PICK_STYLE } from '../../charts/style';
+
+const SHMIN_KIND: Record<string, string> = { estimate: 'estimate', 'lower-bound': 'lower bound', 'upper-bound': 'upper bound' };
+const SOURCE: Record<string, string> = { given: 'given', file: 'from the file', 'default-gradient': 'default gradient' };
+
+function Value({ units, value, tvd, prefix = '' }: { units: UnitSystem; value: number; tvd: number | null; prefix?: string }) {
+  const emw = equivalentMudDensity(value, tvd);
+  return <><b>{prefix}{formatQuantity(units, 'pressure', value)}</b>{emw !== null && <span className="hint"> · EMW {formatQuantity(units, 'emw', emw)}</span>}</>;
+}
+
+/** Stress estimates of the test, with the cautions beside SHmax shown prominently. */
+export function StressPanel({ stress, units, tvd }: { stress: StressEstimates; units: UnitSystem; tvd: number | null }) {
+  const { shmin, shmax } = stress;
+  // The detectability message is shown once, first; other cautions follow it.
+  const cautions = shmax ? shmax.cautions.filter((c) => c !== shmax.detectability?.message) : [];
+  return (
+    <section className="panel stack" aria-labelledby="stress-title" data-testid="stress-panel">
+      <h2 id="stress-title" style={{ margin: 0 }}>Stress estimates at test depth</h2>
+      <dl className="kv">
+        <dt>Shmin</dt>
+        <dd data-testid="shmin-value">{shmin ? <><Value units={units} value={shmin.value} tvd={tvd} prefix={shmin.kind === 'lower-bound' ? '≥ ' : shmin.kind === 'upper-bound' ? '≤ ' : ''} />
+          <div className="hint">{SHMIN_KIND[shmin.kind]} from the {PICK_STYLE[shmin.from].name.toLowerCase()}, cycle {shmin.cycle}</div></> : <span className="hint">no pick supports an estimate</span>}</dd>
+        <dt>Sv</dt><dd><Value units={units} value={stress.sv.value} tvd={tvd} /> <span className="hint">({SOURCE[stress.sv.source]})</span></dd>
+        <dt>Pp</dt><dd><Value units={units} value={stress.pp.value} tvd={tvd} /> <span className="hint">({SOURCE[stress.pp.source]})</span></dd>
+        {stress.tensileStrength !== null && <><dt>T0 = Pb − Pr</dt><dd>{formatQuantity(units, 'pressure', stress.tensileStrength)}</dd></>}
+        {shmax && <>
+          <dt>SHmax bounds</dt>
+          <dd data-testid="shmax-bounds">{formatQuantity(units, 'pressure', shmax.low)} to {formatQuantity(units, 'pressure', shmax.high)}
+            <div className="hint">frictional limit, friction coefficient {stress.frictionCoefficient}</div></dd>
+          {shmax.value !== null && <><dt>SHmax (reopening)</dt><dd data-testid="shmax-value"><Value units={units} value={shmax.value} tvd={tvd} /><div className="hint">{shmax.method}</div></dd></>}
+        </>}
+      </dl>
+      {shmax && (shmax.detectability || cautions.length > 0) && (
+        <div className="shmax-caution" role="note" data-testid="shmax-caution">
+          <b>Caution on SHmax.</b>
+          {shmax.detectability && <p style={{ margin: '4px 0' }} data-testid="detectability-message">{shmax.detectability.message}</p>}
+          {shmax.detectability && (
+            <p className="hint" style={{ margin: '4px 0' }}>
+              Smallest visible departure {formatSignificant(units, 'pressure', shmax.detectability.minPressureDeparture)}; smallest detectable fracture volume{' '}
+              {formatSignificant(units, 'volume', shmax.detectability.minDetectableVolume)}; implied fracture length{' '}
+              {formatSignificant(units, 'depth', shmax.detectability.impliedFractureLength)} ({shmax.detectability.lengthToRadius.toFixed(1)} × wellbore radius).{' '}
+              {shmax.detectability.kirschApplies ? 'The near-wall relations can still apply.' : 'The near-wall (Kirsch) relations do not apply at that length.'}
+            </p>
+          )}
+          {cautions.length > 0 && <ul style={{ margin: '4px 0', paddingLeft: 18 }}>{cautions.map((c) => <li key={c}>{c}</li>)}</ul>}
+        </div>
+      )}
+    </section>
+  );
+}

@@ -1,0 +1,144 @@
+import { useMemo, useState } from 'react';
+import type { TestDetail } from '../../../archive/api';
+import type { AnalysisResult } from '../../../engine/result';
+import type { UnitSystem } from '../../../engine/units/unitSystem';
+import { ChartView, type PickDrop } from '../../components/ChartView';
+import {
+  cyclesOverlayOption, gFunctionChartOption, logLogChartOption, parsePickKey, placedPicks, sqrtTimeChartOption,
+  stepRateChartOption, timeChartOption, volumeChartOption,
+} from '../../charts/options';
+import { hasShutIn, shutInDiagnostics } from '../../charts/shutInDiagnostics';
+import { fromDisplay } from '../../format/units';
+import { nearestIndex, nearestIndexUnsorted, pickRange } from '../../state/pickPlacement';
+import type { PickEditRequest } from './PickDialog';
+
+type Tab = 'volume' | 'shutin' | 'steprate' | 'overlay';
+const TARGET = 2400;
+
+export function TestCharts({ detail, analysis, units, selected, onSelect, onDrop }: {
+  detail: TestDetail; analysis: AnalysisResult; units: UnitSystem; selected: string | null;
+  onSelect: (key: string) => void; onDrop: (request: PickEditRequest) => void;
+}) {
+  const { time, pressure, rate, volume } = detail.samples;
+  const downhole = analysis.downholePressure;
+  const stepCycle = analysis.cycles.find((c) => c.stepRate && c.stepRate.steps.length > 0) ?? null;
+  const shutInCycles = analysis.cycles.filter(hasShutIn);
+  const [tab, setTab] = useState<Tab>(analysis.type === 'srt' && stepCycle ? 'steprate' : analysis.type === 'dfit' ? 'shutin' : 'volume');
+  const [range, setRange] = useState<[number, number] | null>(null);
+  const [shutInCycle, setShutInCycle] = useState<number>(shutInCycles[0]?.cycle.index ?? 1);
+  const [showGauge, setShowGauge] = useState(analysis.hydrostaticCorrection !== 0);
+  const picks = useMemo(() => placedPicks(analysis), [analysis]);
+
+  const rangeSeconds = useMemo<[number, number] | null>(() => (range ? [fromDisplay(units, 'time', range[0]), fromDisplay(units, 'time', range[1])] : null), [range, units]);
+  const timeOption = useMemo(() => timeChartOption({
+    time, gaugePressure: pressure, downholePressure: downhole, rate, picks, units, target: TARGET, range: rangeSeconds, showGauge,
+  }), [time, pressure, downhole, rate, picks, units, rangeSeconds, showGauge]);
+  const volumeOption = useMemo(() => (tab === 'volume' ? volumeChartOption({ time, volume, downholePressure: downhole, cycles: analysis.cycles, units, target: TARGET }) : null),
+    [tab, time, volume, downhole, analysis.cycles, units]);
+  const shutIn = useMemo(() => {
+    if (tab !== 'shutin') return null;
+    const c = analysis.cycles.find((x) => x.cycle.index === shutInCycle && hasShutIn(x));
+    try { return c ? shutInDiagnostics(time, downhole, c) : null; } catch { return null; }
+  }, [tab, analysis.cycles, shutInCycle, time, downhole]);
+  const shutInOptions = useMemo(() => (shutIn ? {
+    g: gFunctionChartOption(shutIn, units, 1200), sqrt: sqrtTimeChartOption(shutIn, units, 1200), log: logLogChartOption(shutIn, units, 1200),
+  } : null), [shutIn, units]);
+  const stepOption = useMemo(() => (tab === 'steprate' && stepCycle ? stepRateChartOption({ cycle: stepCycle, units }) : null), [tab, stepCycle, units]);
+  const overlayOption = useMemo(() => (tab === 'overlay' ? cyclesOverlayOption({ time, downholePressure: downhole, cycles: analysis.cycles, units, target: TARGET }) : null),
+    [tab, time, downhole, analysis.cycles, units]);
+
+  const cycleOf = (n: number) => analysis.cycles.find((c) => c.cycle.index === n);
+
+  /** Converts a drop on one chart into the sample it means. */
+  const drop = (chart: 'time' | 'volume' | 'g' | 'sqrt' | 'step') => (d: PickDrop) => {
+    const key = parsePickKey(d.key);
+    if (!key) return;
+    const c = cycleOf(key.cycle);
+    if (!c) return;
+    const [lo, hi] = pickRange(c, key.kind);
+    let sampleIndex: number;
+    let rateAt: number | undefined;
+    let pressureAt: number | undefined;
+    switch (chart) {
+      case 'time': sampleIndex = nearestIndex(time, fromDisplay(units, 'time', d.x), lo, hi); break;
+      case 'volume': {
+        const v0 = volume[c.cycle.pumpStart];
+        sampleIndex = nearestIndexUnsorted(volume.map((v) => v - v0), fromDisplay(units, 'volume', d.x), lo, hi);
+        break;
+      }
+      case 'g':
+      case 'sqrt': {
+        if (!shutIn) return;
+        const series = chart === 'g' ? shutIn.g : shutIn.rootDt;
+        sampleIndex = c.cycle.pumpEnd + nearestIndex(series, d.x);
+        break;
+      }
+      case 'step': {
+        rateAt = fromDisplay(units, 'rate', d.x);
+        pressureAt = fromDisplay(units, 'pressure', d.y);
+        const steps = c.stepRate?.steps ?? [];
+        const nearest = steps.reduce((b, s) => (Math.abs(s.rate - rateAt!) < Math.abs(b.rate - rateAt!) ? s : b), steps[0]);
+        sampleIndex = nearest ? nearest.endIndex : c.cycle.pumpEnd;
+        break;
+      }
+    }
+    onDrop({ cycle: key.cycle, kind: key.kind, proposal: { sampleIndex, pressure: pressureAt, rate: rateAt } });
+  };
+
+  const tabs: { id: Tab; label: string; show: boolean }[] = [
+    { id: 'volume', label: 'Pressure against volume', show: true },
+    { id: 'shutin', label: 'Shut-in diagnostics', show: shutInCycles.length > 0 },
+    { id: 'steprate', label: 'Step rate', show: stepCycle !== null },
+    { id: 'overlay', label: 'All cycles overlaid', show: analysis.cycles.length > 0 },
+  ];
+
+  return (
+    <div className="stack">
+      <section className="panel tight" aria-label="Pressure and rate against time">
+        <div className="row" style={{ marginBottom: 4 }}>
+          <h2 style={{ margin: 0 }}>Pressure and rate against time</h2><span className="spacer" />
+          <label className="row hint" style={{ gap: 4 }}><input type="checkbox" checked={showGauge} onChange={(e) => setShowGauge(e.target.checked)} />Show gauge pressure</label>
+          {range && <button className="btn small" type="button" onClick={() => setRange(null)}>Show whole record</button>}
+        </div>
+        <ChartView option={timeOption} className="chart-box tall" testId="chart-time" label="Downhole pressure and pump rate against time, with the picks" draggable
+          onPickDrop={drop('time')} onPickClick={onSelect} onZoom={setRange} highlightKey={selected} />
+      </section>
+      <section className="panel tight">
+        <div className="tabs" role="tablist" aria-label="Diagnostic charts">
+          {tabs.filter((t) => t.show).map((t) => (
+            <button key={t.id} type="button" role="tab" className="tab" aria-selected={tab === t.id} data-testid={`tab-${t.id}`} onClick={() => setTab(t.id)}>{t.label}</button>
+          ))}
+        </div>
+        <div style={{ paddingTop: 8 }} role="tabpanel">
+          {tab === 'volume' && <ChartView option={volumeOption} testId="chart-volume" label="Pressure against pumped volume with the fitted loading line" draggable
+            onPickDrop={drop('volume')} onPickClick={onSelect} highlightKey={selected} />}
+          {tab === 'shutin' && (
+            <div className="stack">
+              <div className="row">
+                <label className="row" style={{ gap: 6 }}>Cycle
+                  <select value={shutInCycle} onChange={(e) => setShutInCycle(Number(e.target.value))} data-testid="shutin-cycle">
+                    {shutInCycles.map((c) => <option key={c.cycle.index} value={c.cycle.index}>Cycle {c.cycle.index}</option>)}
+                  </select>
+                </label>
+                <span className="hint">G-function with G dP/dG · square root of time · log-log derivative</span>
+              </div>
+              {shutInOptions ? (
+                <div className="stack">
+                  <ChartView option={shutInOptions.g} className="chart-box" testId="chart-gfunction" label="G-function plot" draggable onPickDrop={drop('g')} onPickClick={onSelect} highlightKey={selected} />
+                  <div className="chart-row">
+                  <ChartView option={shutInOptions.sqrt} className="chart-box small" testId="chart-sqrt" label="Square root of time plot" draggable onPickDrop={drop('sqrt')} onPickClick={onSelect} highlightKey={selected} />
+                  <ChartView option={shutInOptions.log} className="chart-box small" testId="chart-loglog" label="Log-log derivative plot" />
+                  </div>
+                </div>
+              ) : <p className="hint">This cycle has no shut-in long enough to diagnose.</p>}
+            </div>
+          )}
+          {tab === 'steprate' && (stepOption
+            ? <ChartView option={stepOption} testId="chart-steprate" label="Step-rate plot of stabilised pressure against rate" draggable onPickDrop={drop('step')} onPickClick={onSelect} highlightKey={selected} />
+            : <p className="hint">No stabilised steps were found.</p>)}
+          {tab === 'overlay' && <ChartView option={overlayOption} testId="chart-overlay" label="All cycles overlaid" />}
+        </div>
+      </section>
+    </div>
+  );
+}

@@ -1,0 +1,150 @@
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import type { TestDetail } from '../../../archive/api';
+import type { Pick, PickKind } from '../../../engine/result';
+import { useApp } from '../../context';
+import { GradeBadge, SafetyNote, StateBadge } from '../../components/Badges';
+import { ReasonDialog } from '../../components/Dialog';
+import { placedPicks } from '../../charts/options';
+import { formatQuantity } from '../../format/units';
+import { canRedo, canUndo, emptyHistory, historyShortcut, recordEdit, redoStep, undoStep, type PickHistory } from '../../state/pickHistory';
+import { PickDialog, type PickEditRequest } from './PickDialog';
+import { PickPanel } from './PickPanel';
+import { QualityPanel } from './QualityPanel';
+import { ReviewPanel } from './ReviewPanel';
+import { StressPanel } from './StressPanel';
+import { TestCharts } from './TestCharts';
+
+type SideTab = 'quality' | 'stress' | 'picks' | 'review';
+const SIDE_TABS: { id: SideTab; label: string }[] = [
+  { id: 'quality', label: 'Quality' }, { id: 'stress', label: 'Stresses' }, { id: 'picks', label: 'Picks' }, { id: 'review', label: 'Review' },
+];
+
+export function TestScreen({ testId }: { testId: string }) {
+  const [side, setSide] = useState<SideTab>('quality');
+  const { archive, bridge, user, units, setUnits, navigate, notify } = useApp();
+  const [detail, setDetail] = useState<TestDetail | null>(null);
+  const [error, setError] = useState<string | null>(null);
+  const [limits, setLimits] = useState<Record<string, number>>({});
+  const [selected, setSelected] = useState<string | null>(null);
+  const [editing, setEditing] = useState<PickEditRequest | null>(null);
+  const [resetting, setResetting] = useState(false);
+  const [history, setHistory] = useState<PickHistory>(() => emptyHistory(testId));
+  const historyRef = useRef(history);
+  useEffect(() => { historyRef.current = history; }, [history]);
+
+  const reload = useCallback(() => {
+    archive.getTest(testId).then(setDetail).catch((e: unknown) => setError(e instanceof Error ? e.message : String(e)));
+  }, [archive, testId]);
+  useEffect(() => { reload(); void archive.getSettings().then((s) => setLimits(s.limits)); }, [reload, archive]);
+
+  const applyChange = useCallback(async (cycle: number, kind: PickKind, pick: Pick | null, reason: string) => {
+    const next = await archive.movePick(testId, cycle, kind, pick, reason, user);
+    setDetail(next);
+    return next;
+  }, [archive, testId, user]);
+
+  const savePick = useCallback(async (cycle: number, kind: PickKind, pick: Pick | null, reason: string) => {
+    const before = detail?.analysis.cycles.find((c) => c.cycle.index === cycle)?.picks[kind] ?? null;
+    const next = await applyChange(cycle, kind, pick, reason);
+    setHistory((h) => recordEdit(h, { cycle, kind, before, after: pick, reason }));
+    notify(`Pick saved. Grade now ${next.analysis.quality.grade}.`);
+  }, [detail, applyChange, notify]);
+
+  const undo = useCallback(async () => {
+    const step = undoStep(historyRef.current);
+    if (!step) return;
+    setHistory(step.next);
+    try { await applyChange(step.apply.cycle, step.apply.kind, step.apply.after ? { ...step.apply.after, manual: true, reason: step.apply.reason } : null, step.apply.reason); notify('Pick change undone.'); }
+    catch (e) { notify(e instanceof Error ? e.message : String(e)); }
+  }, [applyChange, notify]);
+  const redo = useCallback(async () => {
+    const step = redoStep(historyRef.current);
+    if (!step) return;
+    setHistory(step.next);
+    try { await applyChange(step.apply.cycle, step.apply.kind, step.apply.after, step.apply.reason); notify('Pick change redone.'); }
+    catch (e) { notify(e instanceof Error ? e.message : String(e)); }
+  }, [applyChange, notify]);
+
+  useEffect(() => {
+    const onKey = (e: KeyboardEvent) => {
+      const t = e.target as HTMLElement | null;
+      if (t && (t.tagName === 'INPUT' || t.tagName === 'TEXTAREA' || t.tagName === 'SELECT' || t.isContentEditable)) return;
+      const command = historyShortcut(e);
+      if (command) { e.preventDefault(); void (command === 'undo' ? undo() : redo()); }
+    };
+    window.addEventListener('keydown', onKey);
+    const off = bridge.onMenuCommand((c) => {
+      if (c === 'undo') void undo();
+      if (c === 'redo') void redo();
+      if (c === 'print-report' && detail) void bridge.printReport(`${detail.summary.wellName}-${detail.summary.type}-review.pdf`);
+    });
+    return () => { window.removeEventListener('keydown', onKey); off(); };
+  }, [undo, redo, bridge, detail]);
+
+  const picks = useMemo(() => (detail ? placedPicks(detail.analysis) : []), [detail]);
+
+  if (error) return <div className="page" data-testid="screen-test"><div className="notice bad" role="alert">{error}</div></div>;
+  if (!detail) return <div className="page" data-testid="screen-test" aria-busy="true"><p className="hint">Loading the test…</p></div>;
+
+  const s = detail.summary;
+  const m = detail.metadata;
+  const a = detail.analysis;
+  return (
+    <div className="page" data-testid="screen-test" data-test-id={s.id}>
+      <div className="test-head">
+        <button type="button" className="btn small no-print" onClick={() => navigate({ screen: 'archive' })}>← Archive</button>
+        <div>
+          <h1 data-testid="test-title">{s.wellName} · {a.type.toUpperCase()}{a.typeInferred ? <span className="hint" style={{ fontSize: 13 }}> (type inferred)</span> : null}</h1>
+          <div className="facts">
+            <span>Field <b>{s.fieldName}</b></span>
+            <span>TVD <b>{formatQuantity(units, 'depth', s.depthTvd)}</b></span>
+            <span>MD <b>{formatQuantity(units, 'depth', s.depthMd)}</b></span>
+            <span>Mud <b>{formatQuantity(units, 'density', m.mudDensity ?? null)}</b></span>
+            <span>Gauge <b>{m.gaugePosition ?? 'surface'}</b></span>
+            <span>File <b className="mono">{s.fileName}</b></span>
+            <span>Imported by <b>{s.importedBy}</b></span>
+          </div>
+        </div>
+        <div className="head-right">
+        <GradeBadge grade={a.quality.grade} large />
+        <StateBadge state={s.state} />
+        <div className="row no-print" role="group" aria-label="Units">
+          <button type="button" className={`btn small${units === 'si' ? ' primary' : ''}`} aria-pressed={units === 'si'} onClick={() => setUnits('si')} data-testid="units-si">SI</button>
+          <button type="button" className={`btn small${units === 'oilfield' ? ' primary' : ''}`} aria-pressed={units === 'oilfield'} onClick={() => setUnits('oilfield')} data-testid="units-oilfield">Oilfield</button>
+        </div>
+        <button type="button" className="btn small no-print" onClick={() => navigate({ screen: 'report', testId: s.id })} data-testid="open-report">Report</button>
+        <button type="button" className="btn small no-print" onClick={() => navigate({ screen: 'report', wellName: s.wellName })} data-testid="open-well-report">Well report</button>
+        <button type="button" className="btn small no-print" onClick={() => void bridge.printReport(`${s.wellName}-${a.type}-review.pdf`)} data-testid="print-report">Print</button>
+        </div>
+      </div>
+      {a.warnings.length > 0 && <div className="notice warn"><b>Analysis notes:</b> {a.warnings.join(' ')}</div>}
+      <div className="review">
+        <TestCharts detail={detail} analysis={a} units={units} selected={selected} onSelect={(k) => { setSelected(k); setSide('picks'); }} onDrop={setEditing} />
+        <div className="side">
+          <div className="tabs" role="tablist" aria-label="Test details">
+            {SIDE_TABS.map((t) => (
+              <button key={t.id} type="button" role="tab" className="tab" aria-selected={side === t.id} data-testid={`side-tab-${t.id}`}
+                onClick={() => setSide(t.id)}>{t.label}{t.id === 'stress' && a.stress.shmax ? ' ⚠' : ''}</button>
+            ))}
+          </div>
+          {/* Every panel stays mounted: the inactive ones are hidden on screen and printed in the report. */}
+          <div className={side === 'quality' ? undefined : 'print-only'}><QualityPanel quality={a.quality} limits={limits} /></div>
+          <div className={side === 'stress' ? undefined : 'print-only'}><StressPanel stress={a.stress} units={units} tvd={s.depthTvd} /></div>
+          <div className={side === 'picks' ? undefined : 'print-only'}><PickPanel picks={picks} units={units} selected={selected} onSelect={setSelected}
+            onEdit={(cycle, kind) => setEditing({ cycle, kind })}
+            onReset={detail.manualPicks.length ? () => setResetting(true) : null} onAdd={() => setEditing({ cycle: a.cycles[0]?.cycle.index ?? 1, kind: 'closure', chooseKind: true })}
+            canUndo={canUndo(history)} canRedo={canRedo(history)} onUndo={() => void undo()} onRedo={() => void redo()} /></div>
+          <div className={side === 'review' ? undefined : 'print-only'}><ReviewPanel detail={detail} onChanged={reload} /></div>
+        </div>
+      </div>
+      <SafetyNote />
+      {resetting && (
+        <ReasonDialog title="Return to the automatic picks" confirmLabel="Use automatic picks"
+          explanation="Every pick set by hand on this test is dropped; the analysis picks again. The hand picks stay in the review log."
+          onConfirm={async (reason) => { setDetail(await archive.resetPicks(testId, reason, user)); setHistory(emptyHistory(testId)); notify('Back to the automatic picks.'); }}
+          onClose={() => setResetting(false)} />
+      )}
+      {editing && <PickDialog detail={detail} request={editing} units={units} limits={limits} onSave={savePick} onClose={() => setEditing(null)} />}
+    </div>
+  );
+}
