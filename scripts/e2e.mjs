@@ -5,7 +5,18 @@ import { existsSync } from 'node:fs';
 import { electronBinary, run } from './electron-runtime.mjs';
 
 const chromium = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
-if (!existsSync(chromium)) {
+
+/** Installs Debian's Chromium when this is a Debian machine and we may (root, apt-get present). */
+async function installChromium() {
+  const isRoot = typeof process.getuid === 'function' && process.getuid() === 0;
+  if (!isRoot || !existsSync('/usr/bin/apt-get') || process.env.CHROMIUM_PATH) return false;
+  console.log("Chromium is missing: installing Debian's chromium package for the end-to-end tests…");
+  const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
+  if ((await run('apt-get', ['update', '-qq'], { env })) !== 0) return false;
+  return (await run('apt-get', ['install', '-y', '-qq', 'chromium'], { env })) === 0 && existsSync(chromium);
+}
+
+if (!existsSync(chromium) && !(await installChromium())) {
   console.error([
     `Chromium was not found at ${chromium}; the end-to-end tests drive Debian's Chromium.`,
     'Install it with:',
