@@ -1,11 +1,14 @@
 /**
  * The data rows of a delimited table, read straight from bytes into Float64Arrays: one pass
- * to count lines (to size the arrays), one pass to split fields and parse numbers. No string
- * of the file and no row objects are built, so a 30 MB file costs little more than its arrays.
+ * to count lines (to size the arrays, lineCount.ts), one pass to split fields and parse
+ * numbers. No string of the file and no row objects are built, so a 30 MB file costs little
+ * more than its arrays. The usual cell, a plain decimal ending at the delimiter, is read by
+ * a tight digit loop; any other cell is rescanned by the general path from its start.
  */
 import { EngineError } from '../errors';
-import { latin1Text, parseDecimalBytes, POWERS_OF_TEN } from './byteNumbers';
-import { parseClockTime, parseIsoTimestamp } from './cellValues';
+import { POWERS_OF_TEN } from './byteNumbers';
+import { KIND_CLOCK, KIND_ISO, KIND_NUMBER, scanGeneralField, type ScanPlan } from './delimitedCell';
+import { countTextLines } from './lineCount';
 
 /** How one column of the body is read. */
 export interface BodyColumn {
@@ -30,36 +33,8 @@ const LF = 10;
 const CR = 13;
 const SPACE = 32;
 const TAB = 9;
-const QUOTE = 34;
 const MINUS = 45;
 const ZERO = 48;
-
-const KIND_NUMBER = 0;
-const KIND_CLOCK = 1;
-const KIND_ISO = 2;
-
-/**
- * Counts the lines from `start` as the scanner splits them (LF, CRLF or a lone CR end a
- * line): an upper bound on the rows, so that the arrays never overflow.
- */
-function countLines(bytes: Uint8Array, start: number): number {
-  let lines = 1;
-  for (let i = bytes.indexOf(LF, start); i >= 0; i = bytes.indexOf(LF, i + 1)) lines++;
-  for (let i = bytes.indexOf(CR, start); i >= 0; i = bytes.indexOf(CR, i + 1)) if (bytes[i + 1] !== LF) lines++;
-  return lines;
-}
-
-/** The settings the scanning loop needs, prepared once. */
-interface ScanPlan {
-  slotOfField: Int32Array;
-  kinds: Uint8Array;
-  required: Uint8Array;
-  columns: readonly BodyColumn[];
-  width: number;
-  delimiter: number;
-  decimalMark: number;
-  fileName: string;
-}
 
 /**
  * Reads the body of a delimited table.
@@ -81,7 +56,7 @@ export function scanDelimitedBody(
   bytes: Uint8Array, start: number, firstLine: number, delimiter: number, decimalMark: number,
   width: number, columns: readonly BodyColumn[], fileName: string,
 ): DelimitedBody {
-  const capacity = countLines(bytes, start);
+  const capacity = countTextLines(bytes, start);
   const values = columns.map(() => new Float64Array(capacity));
   const plan = makePlan(columns, width, delimiter, decimalMark, fileName);
   const anchors: number[] = [0, firstLine];
@@ -116,14 +91,19 @@ function lineFromAnchors(anchors: readonly number[], row: number): number {
 function scanRows(bytes: Uint8Array, start: number, firstLine: number, plan: ScanPlan, values: Float64Array[], anchors: number[]): number {
   const n = bytes.length;
   const { slotOfField, kinds, width, delimiter, decimalMark } = plan;
+  // per field: the array a plain decimal goes to (null: not a number column or not read)
+  const numberTarget: (Float64Array | null)[] = [];
+  for (let f = 0; f < width; f++) numberTarget.push(slotOfField[f] >= 0 && kinds[slotOfField[f]] === KIND_NUMBER ? values[slotOfField[f]] : null);
   // a space delimiter stands for runs of spaces and tabs (aligned text tables)
   const collapse = delimiter === SPACE;
   let pos = start;
   let line = firstLine;
   let row = 0;
   let pendingAnchor = false;
+  const scratch = { filled: false };
   while (pos < n) {
-    const blankEnd = endOfBlankLine(bytes, pos, delimiter);
+    const lead = bytes[pos];
+    const blankEnd = (lead >= ZERO && lead <= ZERO + 9) || lead === MINUS ? -1 : endOfBlankLine(bytes, pos, delimiter);
     if (blankEnd >= 0) {
       pos = blankEnd;
       pendingAnchor = true;
@@ -135,54 +115,50 @@ function scanRows(bytes: Uint8Array, start: number, firstLine: number, plan: Sca
     let atEnd = false;
     if (collapse) while (bytes[pos] === SPACE || bytes[pos] === TAB) pos++;
     while (!atEnd) {
-      const fieldStart = pos;
       const slot = field < width ? slotOfField[field] : -1;
-      // fast path: a plain decimal ("-12.5") is parsed while the field is scanned
-      let simple = slot >= 0 && kinds[slot] === KIND_NUMBER;
-      let mantissa = 0;
-      let digits = 0;
-      let fraction = 0;
-      let seenMark = false;
-      let negative = false;
-      let trailing = false;
-      let filled = false;
-      let b = pos < n ? bytes[pos] : LF;
-      if (b === QUOTE) {
-        simple = false;
-        pos++;
-        while (pos < n && bytes[pos] !== QUOTE) {
-          if (bytes[pos] !== SPACE) filled = true;
-          pos++;
+      const target = field < width ? numberTarget[field] : null;
+      let b = LF;
+      let done = false;
+      if (target !== null) {
+        // fastest path: [-]digits[.digits] straight up to the field's end, the usual cell
+        let p = pos;
+        let c = p < n ? bytes[p] : LF;
+        const negative = c === MINUS;
+        if (negative) c = ++p < n ? bytes[p] : LF;
+        let mantissa = 0;
+        let digits = 0;
+        let d = c - ZERO;
+        while (d >= 0 && d <= 9) {
+          mantissa = mantissa * 10 + d;
+          digits++;
+          c = ++p < n ? bytes[p] : LF;
+          d = c - ZERO;
         }
-        pos++;
-        b = pos < n ? bytes[pos] : LF;
-      }
-      while (b !== delimiter && b !== LF && b !== CR && !(collapse && b === TAB)) {
-        if (b !== SPACE && b !== TAB) filled = true;
-        if (simple) {
-          const d = b - ZERO;
-          if (d >= 0 && d <= 9 && !trailing) {
+        let fraction = 0;
+        if (c === decimalMark && c !== delimiter) {
+          c = ++p < n ? bytes[p] : LF;
+          d = c - ZERO;
+          while (d >= 0 && d <= 9) {
             mantissa = mantissa * 10 + d;
             digits++;
-            if (seenMark) fraction++;
-          } else if (b === SPACE || b === TAB) {
-            if (digits > 0 || seenMark || negative) trailing = true;
-          } else if (b === decimalMark && !seenMark && !trailing) seenMark = true;
-          else if (b === MINUS && digits === 0 && !seenMark && !negative) negative = true;
-          else simple = false;
+            fraction++;
+            c = ++p < n ? bytes[p] : LF;
+            d = c - ZERO;
+          }
         }
-        pos++;
-        b = pos < n ? bytes[pos] : LF;
-      }
-      const fieldEnd = pos < n ? pos : n;
-      if (filled) lastNonEmpty = field;
-      if (slot >= 0) {
-        if (simple && digits > 0 && digits <= 15) {
+        if (digits > 0 && digits <= 15 && (c === delimiter || c === LF || c === CR || (collapse && c === TAB))) {
           const magnitude = fraction === 0 ? mantissa : mantissa / POWERS_OF_TEN[fraction];
-          values[slot][row] = negative ? -magnitude : magnitude;
-        } else {
-          values[slot][row] = readCell(bytes, fieldStart, fieldEnd, kinds[slot], plan, slot, line, field);
+          target[row] = negative ? -magnitude : magnitude;
+          lastNonEmpty = field;
+          pos = p;
+          b = c;
+          done = true;
         }
+      }
+      if (!done) {
+        pos = scanGeneralField(bytes, pos, slot, field, row, line, plan, values, scratch);
+        b = pos < n ? bytes[pos] : LF;
+        if (scratch.filled) lastNonEmpty = field;
       }
       field++;
       if (collapse && (b === SPACE || b === TAB)) {
@@ -225,27 +201,6 @@ function endOfBlankLine(bytes: Uint8Array, pos: number, delimiter: number): numb
     i++;
   }
   return n;
-}
-
-function isBlank(bytes: Uint8Array, s: number, e: number): boolean {
-  for (let i = s; i < e; i++) {
-    const b = bytes[i];
-    if (b !== SPACE && b !== TAB && b !== QUOTE) return false;
-  }
-  return true;
-}
-
-/** Reads one cell; blank optional cells give NaN (a gap to fill later). */
-function readCell(bytes: Uint8Array, s: number, e: number, kind: number, plan: ScanPlan, slot: number, line: number, field: number): number {
-  let value: number;
-  if (kind === KIND_NUMBER) value = parseDecimalBytes(bytes, s, e, plan.decimalMark);
-  else value = kind === KIND_CLOCK ? parseClockTime(latin1Text(bytes, s, e)) : parseIsoTimestamp(latin1Text(bytes, s, e));
-  if (value === value) return value;
-  const blank = isBlank(bytes, s, e);
-  if (blank && plan.required[slot] === 0) return NaN;
-  const column = plan.columns[slot];
-  const what = blank ? 'blank cell' : `"${latin1Text(bytes, s, Math.min(e, s + 40)).trim()}" is not a number`;
-  throw new EngineError('non-numeric-cell', what, { file: plan.fileName, line, column: field + 1 }, column.expected);
 }
 
 function checkRowWidth(fields: number, lastNonEmpty: number, plan: ScanPlan, line: number): void {

@@ -9,14 +9,16 @@
 import { EngineError } from '../errors';
 import type { TestRecord } from '../record';
 import { parseDelimitedTest, previewDelimited } from './delimitedImport';
-import { validateImportOptions, type ImportOptions } from './importOptions';
+import type { ImportOptions } from './importOptions';
+import { checkImportOptions } from './importOptionsCheck';
 import { parseLasFile } from './lasImport';
 import type { TablePreview } from './tableHead';
 import { decodeText, detectEncoding } from './textEncoding';
 import { parseXlsxTest, previewXlsx } from './xlsxImport';
 
 export type { ImportOptions, ColumnOverride } from './importOptions';
-export { validateImportOptions } from './importOptions';
+// validateImportOptions (the zod schema) is exported by the folder's index.ts, not here, so
+// that importing a file without options never loads the schema library (importOptionsCheck.ts).
 export type { TablePreview } from './tableHead';
 export { parseDelimitedTest, previewDelimited } from './delimitedImport';
 export { parseLasFile, type LasImport } from './lasImport';
@@ -65,12 +67,12 @@ function openingText(bytes: Uint8Array, fileName: string): string {
  * @param fileName shown in errors and kept in `record.source`
  * @param options forced mapping, test type, metadata overrides, sheet, allowMissingRateAndVolume
  * @returns the record: time s from 0, pressure Pa at the gauge, rate m3/s, volume m3
- * @throws EngineError 'bad-argument' for invalid options (zod-checked); (file, line, column / sheet, cell): see parseDelimitedTest,
+ * @throws EngineError 'bad-argument' for invalid options (zod-checked, importOptionsCheck.ts); (file, line, column / sheet, cell): see parseDelimitedTest,
  *   parseXlsxTest, parseLasFile; 'unsupported-format' for a depth log or legacy workbook
  * @example const record = await importTestFile(bytes, 'hf3-lot.csv');
  */
 export async function importTestFile(bytes: Uint8Array, fileName: string, options: ImportOptions = {}): Promise<TestRecord> {
-  validateImportOptions(options, fileName);
+  await checkImportOptions(options, fileName);
   const format = detectImportFormat(bytes, fileName);
   if (format === 'xlsx') return parseXlsxTest(bytes, fileName, options);
   if (format === 'delimited') return parseDelimitedTest(bytes, fileName, options);
@@ -94,7 +96,7 @@ export async function importTestFile(bytes: Uint8Array, fileName: string, option
  * @example (await detectColumns(bytes, 'hf3-lot.csv')).columns
  */
 export async function detectColumns(bytes: Uint8Array, fileName: string, options: ImportOptions = {}): Promise<TablePreview> {
-  validateImportOptions(options, fileName);
+  await checkImportOptions(options, fileName);
   const format = detectImportFormat(bytes, fileName);
   if (format === 'xlsx') return previewXlsx(bytes, fileName, options);
   if (format === 'delimited') return previewDelimited(bytes, fileName, options);
