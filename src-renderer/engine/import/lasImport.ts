@@ -109,7 +109,7 @@ function lasDepthLog(sections: LasSections, header: LasHeader, data: LasData, fi
   const depth = data.columns[0];
   for (let i = 0; i < depth.length; i++) depth[i] *= factor;
   const log: DepthLog = {
-    depth, indexKind: /TVD/i.test(index.mnemonic) ? 'tvd' : /^(DEPT|DEPTH|MD)$/i.test(index.mnemonic) ? 'md' : 'unknown',
+    depth, indexKind: depthIndexKind(index, sections),
     curves: {}, fileName, warnings,
   };
   for (let c = 1; c < data.columns.length; c++) addLogCurve(log, sections.curves[c], data.columns[c]);
@@ -117,6 +117,18 @@ function lasDepthLog(sections: LasSections, header: LasHeader, data: LasData, fi
   if (well && wellItemValue(well, header.version)) log.well = wellItemValue(well, header.version);
   if (header.nullValue !== null) log.nullValue = header.nullValue;
   return log;
+}
+
+/**
+ * Whether the depth index is MD or TVD: a TVD mnemonic, or a DREF / depth-reference item
+ * in ~P or ~W whose value says TVD, makes it TVD; DEPT, DEPTH or MD otherwise reads as MD.
+ */
+function depthIndexKind(index: LasItem, sections: LasSections): DepthLog['indexKind'] {
+  if (/TVD/i.test(index.mnemonic)) return 'tvd';
+  const reference = [...sections.parameters, ...sections.well].find((item) => /^(DREF|DEPTH_REF|DEPREF)$/i.test(item.mnemonic));
+  if (reference && /\bTVD\b/i.test(reference.value)) return 'tvd';
+  if (reference && /\bMD\b/i.test(reference.value)) return 'md';
+  return /^(DEPT|DEPTH|MD)$/i.test(index.mnemonic) ? 'md' : 'unknown';
 }
 
 /** Adds a curve, converting recognised density, length, pressure and gradient units to SI. */

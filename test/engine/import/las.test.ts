@@ -145,3 +145,12 @@ describe('LAS corpus', () => {
     expect(r.record.metadata).toMatchObject({ well: 'HF-3', field: 'Harrow Flats', contractor: 'Cobalt Ridge Test Services', mudDensity: 1250, depthTvd: 2033 });
   });
 });
+
+describe('LAS depth reference', () => {
+  it('should read a DEPT-indexed log whose ~P DREF says TVD as TVD-indexed (CWLS LAS 2.0 parameter section; Harrow Flats demo log)', () => {
+    const bytes = new Uint8Array(readFileSync(new URL('../../../demo/HF-6_density.las', import.meta.url)));
+    const parsed = parseLasFile(bytes, 'HF-6_density.las');
+    expect(parsed.kind).toBe('log');
+    if (parsed.kind === 'log') expect(parsed.log.indexKind).toBe('tvd');
+  });
+});
