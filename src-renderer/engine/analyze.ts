@@ -87,6 +87,7 @@ export function analyzeRecord(record: TestRecord, options: AnalysisOptions = {})
   const expected = expectedLoadingSlope(metadata);
   let analysed = assembleCyclePicks({ type, time: record.time, pressure, rate: record.rate, cycles, features, expectedSlope: expected ? expected.slope : null }, warnings);
   if (options.manualPicks && options.manualPicks.length > 0) analysed = applyManualPicks(analysed, options.manualPicks, n);
+  markClippedPicks(analysed, record.pressure, record.rate, metadata.gaugeRange, warnings);
 
   if (statedType !== undefined && statedType !== inferred.type) {
     warnings.push(`the record looks like a ${inferred.type.toUpperCase()} (${inferred.reasons.join('; ')}) but is analysed as the stated ${statedType.toUpperCase()}`);
@@ -145,6 +146,45 @@ export async function analyzeFile(bytes: Uint8Array, fileName: string, options: 
     return { record, analysis: analyzeRecord(record, options) };
   } catch (e) {
     throw e instanceof EngineError ? e.withFile(fileName) : e;
+  }
+}
+
+/** Picks whose pressure is a recorded reading (ISIP, closure and extension are fitted values). */
+const READING_PICKS: ReadonlySet<string> = new Set(['leakOff', 'breakdown', 'propagation', 'reopening', 'fitMaximum']);
+
+/** Identical readings at the record maximum while pumping that mark a clipped gauge (the gauge-range criterion's default). */
+const CLIPPED_RUN_SAMPLES = 5;
+
+/**
+ * Flags automatic reading picks (leak-off, breakdown, propagation, reopening, FIT maximum)
+ * taken where the gauge clipped (in place): a reading at or above the
+ * stated full-scale range, or inside a run of CLIPPED_RUN_SAMPLES or more identical readings
+ * at the record's maximum while pumping. Such a pick's pressure is what the gauge could
+ * show, not what the well saw, so it is kept, marked `bound: 'lower'`, and a warning says so
+ * (a breakdown from a clipped gauge is a lower bound of the breakdown pressure, and so is a
+ * tensile strength derived from it). Common practice: a saturated reading bounds the true
+ * value from below. O(n) over the record, no per-sample objects.
+ */
+function markClippedPicks(cycles: AnalysisResult['cycles'], gauge: Float64Array, rate: Float64Array, range: number | undefined, warnings: string[]): void {
+  let max = -Infinity;
+  for (let i = 0; i < gauge.length; i++) if (gauge[i] > max) max = gauge[i];
+  const atRange = (i: number): boolean => range !== undefined && range > 0 && gauge[i] >= range * (1 - 1e-9);
+  const inFlatTop = (i: number): boolean => {
+    if (gauge[i] !== max || !(rate[i] > 0)) return false;
+    let a = i;
+    let b = i;
+    while (a > 0 && gauge[a - 1] === max && rate[a - 1] > 0) a--;
+    while (b < gauge.length - 1 && gauge[b + 1] === max && rate[b + 1] > 0) b++;
+    return b - a + 1 >= CLIPPED_RUN_SAMPLES;
+  };
+  for (const c of cycles) {
+    for (const pick of Object.values(c.picks)) {
+      if (!pick || pick.manual || !READING_PICKS.has(pick.kind)) continue;
+      const i = pick.sampleIndex;
+      if (i < 0 || i >= gauge.length || !(atRange(i) || inFlatTop(i))) continue;
+      pick.bound = 'lower';
+      warnings.push(`the ${pick.kind} of cycle ${c.cycle.index} (${(pick.pressure / 1e6).toFixed(2)} MPa) was read where the gauge clipped at ${(gauge[i] / 1e6).toFixed(2)} MPa gauge pressure: it is a lower bound, the true pressure was higher${pick.kind === 'breakdown' ? ', and so is a tensile strength Pb - Pr taken from it' : ''}`);
+    }
   }
 }
 

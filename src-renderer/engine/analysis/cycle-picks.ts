@@ -18,7 +18,8 @@
  * early decline as recorded; pick sample indices refer to the record either way.
  *
  * Primary closure: the first available of 'g-dpdg-tangent', 'compliance', 'sqrt-time',
- * 'bilinear-dpdt' (the order of shut-in.ts); every candidate is kept with the spread.
+ * 'bilinear-dpdt' (the order of shut-in.ts), leaving out candidates marked `gradual`; every
+ * candidate is kept with the spread.
  */
 import type { TestType } from '../record';
 import type { ClosureCandidate, Cycle, CycleAnalysis, Pick } from '../result';
@@ -129,14 +130,17 @@ export function assembleCyclePicks(input: CyclePickInput, warnings: string[] = [
 
 /**
  * The preferred closure candidate by {@link CLOSURE_PREFERENCE}; methods not in the list
- * come after, in their given order.
- * @param candidates closure picks of one cycle. @returns the primary one, or null when empty.
+ * come after, in their given order. Candidates marked `gradual` (a method whose own model
+ * does not hold, shut-in.ts) are never chosen: no closure pick beats a wrong one, and Shmin
+ * then falls back along its hierarchy.
+ * @param candidates closure picks of one cycle. @returns the primary one, or null when empty or all are marked gradual.
  * @example primaryClosure([{ method: 'sqrt-time', ... }, { method: 'g-dpdg-tangent', ... }]).method // 'g-dpdg-tangent'
  */
 export function primaryClosure(candidates: readonly ClosureCandidate[]): ClosureCandidate | null {
   let best: ClosureCandidate | null = null;
   let bestRank = Infinity;
   for (const c of candidates) {
+    if (c.gradual) continue;
     const found = CLOSURE_PREFERENCE.indexOf(c.method);
     const rank = found >= 0 ? found : CLOSURE_PREFERENCE.length;
     if (rank < bestRank) {

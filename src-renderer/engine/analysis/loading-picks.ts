@@ -28,7 +28,7 @@
  */
 import type { Cycle, LineFit, Pick, PickKind } from '../result';
 import { fitLine, RunningLineFit } from './least-squares';
-import { medianOf, noiseStandardDeviation, recordingStep } from './robust-statistics';
+import { medianOf, noiseStandardDeviation, quantisationStep } from './robust-statistics';
 
 /**
  * A stretch is near-linear when its residual SD is at most this many noise SDs: a straight
@@ -45,7 +45,7 @@ export interface LoadingFeatures {
   fit: LineFit | null;
   /** What the fit's abscissa was: the volume column, or time x mean rate. */
   abscissa: 'volume' | 'time-at-mean-rate';
-  /** Noise SD of the pressure while pumping, Pa (includes the recording step). */
+  /** Noise SD of the pressure while pumping, Pa (at least the quantisation step / sqrt 12 and the stated gauge resolution / sqrt 12). */
   noise: number;
   /** Departure threshold used, Pa (k x SD). */
   departureThreshold: number;
@@ -91,7 +91,9 @@ export function analyseLoading(
   const { x, abscissa } = cycleAbscissa(time, volume, cycle);
   const peak = indexOfMaximum(p);
   const rise = Math.max(0, p[peak] - p[0]);
-  const step = recordingStep(p);
+  // Quantisation floor from second differences: the first-difference step of a steep ramp
+  // sampled every 10 s is the ramp's own rise per sample, not a resolution.
+  const step = quantisationStep(p);
   const noise = Math.max(noiseStandardDeviation(p), step / Math.sqrt(12), options.gaugeResolution ? options.gaugeResolution / Math.sqrt(12) : 0);
   const floor = Math.max(5e-4 * rise, 1e-9);
   const k = options.departureSd ?? DEFAULT_DEPARTURE_SD;

@@ -105,3 +105,32 @@ export function recordingStep(values: ArrayLike<number>, start = 0, end = values
   }
   return Number.isFinite(smallest) ? smallest : 0;
 }
+
+/**
+ * The quantisation step of a gauge that rounds its readings, from second differences:
+ * for readings k_i x step the second differences are whole multiples of the step, and
+ * with any noise the smallest non-zero one is the step itself; on an unrounded signal
+ * the smallest non-zero second difference is a small fraction of the noise, so the result
+ * is harmless as a noise floor. Unlike {@link recordingStep} it does not mistake the rise
+ * of a steep, sparsely sampled ramp (every first difference large) for a resolution.
+ * Differences below 1e-9 of the largest |value| are floating-point rounding and ignored.
+ *
+ * @param values signal, any unit. @param start first index. @param end last index (inclusive).
+ * @param limit at most this many second differences are looked at, spread evenly (default 20,000).
+ * @returns the step in the signal's unit, or 0 for fewer than 3 samples or a straight signal.
+ * @example quantisationStep(Float64Array.of(0, 10, 20, 40, 50)) // 10
+ */
+export function quantisationStep(values: ArrayLike<number>, start = 0, end = values.length - 1, limit = 20000): number {
+  const n = end - start + 1;
+  if (n < 3) return 0;
+  let scale = 0;
+  for (let i = start; i <= end; i++) scale = Math.max(scale, Math.abs(values[i]));
+  const ignore = 1e-9 * scale;
+  const stride = Math.max(1, Math.floor((n - 2) / limit));
+  let smallest = Infinity;
+  for (let i = start + 1; i < end; i += stride) {
+    const d = Math.abs(values[i + 1] - 2 * values[i] + values[i - 1]);
+    if (d > ignore && d < smallest) smallest = d;
+  }
+  return Number.isFinite(smallest) ? smallest : 0;
+}

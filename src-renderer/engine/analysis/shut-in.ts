@@ -20,8 +20,9 @@
 import { EngineError } from '../errors';
 import type { ClosureCandidate, Cycle, Pick } from '../result';
 import { binAverages, binnedSlopes, type BinnedSeries } from './derivative';
+import { medianOfNumbers, scaleErrorsToScatter } from './derivative-scatter';
 import { gFunction, type GFunctionAlpha } from './gfunction';
-import { fitHingedLine, fitLine } from './least-squares';
+import { fitHingedLine, fitLine, fitLinearModel } from './least-squares';
 
 /** Tuning of the shut-in picks; every field has a documented default. */
 export interface ShutInOptions {
@@ -68,7 +69,7 @@ const MIN_VALID_BINS = 10;
 const COMPLIANCE_RISE_FACTOR = 3;
 /** Default skip as a fraction of the pumping time (water hammer in a deep well lasts tens of seconds). */
 const SKIP_FRACTION_OF_PUMPING = 0.05;
-/** Fewest samples behind one derivative value (fewer, down to 8, on a shut-in of under 1000 samples: n/25). */
+/** Fewest samples behind one derivative value (fewer, down to 12, on a shut-in of under 1000 samples: n/25; 8 let single noisy windows of a few-minute shut-in look like closure). */
 const MIN_WINDOW_SAMPLES = 40;
 /** Smallest ratio between the two slopes of the bilinear |dP/dt| versus P fit. */
 const BILINEAR_SLOPE_RATIO = 1.5;
@@ -165,7 +166,7 @@ function derivativesIn(variable: Float64Array, pressure: ArrayLike<number>, time
     for (let i = bins.first[k]; i < bins.first[k] + bins.count[k]; i++) sum += variable[i];
     meanU[k] = sum / bins.count[k];
   }
-  const minSamples = Math.min(MIN_WINDOW_SAMPLES, Math.max(8, Math.round(variable.length / 25)));
+  const minSamples = Math.min(MIN_WINDOW_SAMPLES, Math.max(12, Math.round(variable.length / 25)));
   const local = binnedSlopes(bins, meanU, window / 2, minSamples);
   let lo = 0;
   while (lo < bins.x.length && bins.x[lo] - bins.x[0] < window / 2) lo++;
@@ -174,9 +175,11 @@ function derivativesIn(variable: Float64Array, pressure: ArrayLike<number>, time
   bins.x = meanU;
   const rate = local.slope.map((v) => -v);
   const error = local.spread.map((v) => (v > 0 ? s.noise / Math.sqrt(v) : Infinity));
+  scaleErrorsToScatter(rate, error, bins.x, lo, hi, window);
   for (let i = 0; i < bins.index.length; i++) bins.index[i] += s.first;
   return { bins, rate, error, lo, hi };
 }
+
 
 function gDerivatives(time: ArrayLike<number>, pressure: ArrayLike<number>, s: ShutIn): Derivatives {
   const g = series(s.last - s.first + 1, (i) => gFunction((time[s.first + i] - s.t0) / s.tp, s.options.alpha));
@@ -301,19 +304,75 @@ function windowBins(d: Derivatives, k: number, smoothing: number): number {
   return j - k;
 }
 
+/**
+ * Fewest independent derivative windows the analysed shut-in must span (ln(u_hi / u_lo) of
+ * at least this many smoothing widths) before a closure method may pick: a shut-in of a
+ * minute or so, stopped long before closure, spans six or fewer (G from 0.11 to 0.21), and a
+ * noise wiggle in them must not come out as closure. Eight windows (G growing 2.2-fold) is the
+ * engine's own choice (common practice: a closure pick needs the decline well recorded
+ * before and after it); a shut-in recorded to twice the closure time spans far more.
+ */
+const MIN_SPANNED_WINDOWS = 10;
+/** Windows of straight decline (from the first two-sided derivative) a tangent departure must follow. */
+const MIN_WINDOWS_BEFORE_DEPARTURE = 3;
+
+/** Whether the derivatives from bin lo to hi span `count` windows of ln-width smoothing. */
+function spansWindows(d: Derivatives, from: number, to: number, count: number, smoothing: number): boolean {
+  return from >= 0 && to > from && d.bins.x[from] > 0 && Math.log(d.bins.x[to] / d.bins.x[from]) >= count * smoothing;
+}
+
+/** Median of the finite derivatives within one ln-width `smoothing` either side of bin k. */
+function medianAround(d: Derivatives, k: number, smoothing: number): number {
+  const values: number[] = [];
+  for (let j = d.lo; j <= d.hi; j++) {
+    if (Number.isFinite(d.rate[j]) && Math.abs(Math.log(d.bins.x[j] / d.bins.x[k])) <= smoothing) values.push(d.rate[j]);
+  }
+  return values.length > 0 ? medianOfNumbers(values) : d.rate[k];
+}
+
+/**
+ * The tangent's bin: the largest derivative by its lower 2-standard-error bound, leaving out
+ * isolated spikes, bins more than 2 standard errors above the median of the derivatives
+ * within one window either side. The tangent of Barree et al. (2009) touches the straight
+ * part of G dP/dG; one high noisy window (early bins hold few samples) would tilt it above the
+ * whole normal decline, which would then look like a departure. -1 when none qualifies.
+ */
+function tangentPeakBin(d: Derivatives, smoothing: number): number {
+  let best = -1;
+  let bestBound = -Infinity;
+  for (let k = d.lo; k <= d.hi; k++) {
+    const bound = d.rate[k] - 2 * d.error[k];
+    if (!Number.isFinite(d.rate[k]) || !(bound > bestBound)) continue;
+    if (d.rate[k] - medianAround(d, k, smoothing) > 2 * d.error[k]) continue;
+    best = k;
+    bestBound = bound;
+  }
+  return best;
+}
+
 function tangentFrom(d: Derivatives, s: ShutIn, time: ArrayLike<number>): ClosureCandidate | null {
   if (d.hi - d.lo + 1 < MIN_VALID_BINS) return null;
-  const kt = peakBin(d, d.lo, d.hi);
+  if (!spansWindows(d, d.lo, d.hi, MIN_SPANNED_WINDOWS, s.options.smoothing)) return null;
+  const kt = tangentPeakBin(d, s.options.smoothing);
   if (!declines(d, kt)) return null;
   const m = d.rate[kt];
   const limit = (k: number) => m - m * s.options.departureFraction - 3 * Math.hypot(d.error[k], d.error[kt]);
   const below = (k: number) => Number.isFinite(d.rate[k]) && d.rate[k] < limit(k);
-  // Persistence: the curve stays below the limit over one derivative window (independent data).
-  const span = Math.max(3, windowBins(d, kt, s.options.smoothing));
-  for (let k = kt + 1; k + span - 1 <= d.hi; k++) {
+  // Persistence: the curve stays below the limit over two derivative windows after the
+  // crossing, measured in ln G from the crossing itself (bins are sparse early, dense late)
+  // and over at least 3 bins; independent data, so one noisy window cannot make a pick. A
+  // crossing whose two windows run past the data cannot be confirmed: no pick.
+  const persistence = 2 * s.options.smoothing;
+  for (let k = kt + 1; k <= d.hi; k++) {
+    if (!below(k)) continue;
+    let j = k;
     let stays = true;
-    for (let j = k; j < k + span && stays; j++) stays = below(j);
+    while (stays && j <= d.hi && (Math.log(d.bins.x[j] / d.bins.x[k]) < persistence || j - k < 3)) stays = below(j++);
+    if (stays && j > d.hi) return null;
     if (stays) {
+      // A departure right after the first derivatives has no straight decline before it to
+      // be a departure from: no pick (a short or disturbed shut-in), rather than a guess.
+      if (!spansWindows(d, d.lo, k, MIN_WINDOWS_BEFORE_DEPARTURE, s.options.smoothing)) return null;
       // Crossing of the departure limit between bins k-1 and k.
       const over = d.rate[k - 1] - limit(k - 1);
       const under = limit(k) - d.rate[k];
@@ -327,6 +386,7 @@ function tangentFrom(d: Derivatives, s: ShutIn, time: ArrayLike<number>): Closur
 
 function complianceFrom(d: Derivatives, s: ShutIn, time: ArrayLike<number>): ClosureCandidate | null {
   if (d.hi - d.lo + 1 < MIN_VALID_BINS) return null;
+  if (!spansWindows(d, d.lo, d.hi, MIN_SPANNED_WINDOWS, s.options.smoothing)) return null;
   const kt = peakBin(d, d.lo, d.hi);
   if (!declines(d, kt) || kt - d.lo < 6) return null;
   const g: number[] = [];
@@ -351,6 +411,14 @@ function complianceFrom(d: Derivatives, s: ShutIn, time: ArrayLike<number>): Clo
   // and the trend must turn upward at the hinge.
   const needed = atHinge * COMPLIANCE_RISE_FACTOR * s.options.departureFraction + 3 * Math.hypot(d.error[kt], d.error[d.lo + h]);
   if (!(b + c > 0) || !(atPeak - atHinge > needed) || !(b < (b + c) / 2)) return null;
+  // The rise must span at least two derivative windows (independent data), not a noisy bin or
+  // two; and a fall before the hinge as large as half the rise makes a V of noise around a
+  // dip, not a fracture that stiffens as it closes (McClure et al. 2016 describe a rise
+  // from a steady or slowly changing dP/dG).
+  if (!(Math.log(g[g.length - 1] / g[h]) >= 2 * s.options.smoothing)) return null;
+  if (b < 0 && -b * (g[h] - g[0]) > 0.5 * (atPeak - atHinge)) return null;
+  // As for the tangent, a hinge right after the first derivatives has no steady part before it.
+  if (!(Math.log(g[h] / g[0]) >= MIN_WINDOWS_BEFORE_DEPARTURE * s.options.smoothing)) return null;
   return candidateAt('compliance', d, g[h], time, true);
 }
 
@@ -358,11 +426,20 @@ function squareRootFrom(time: ArrayLike<number>, pressure: ArrayLike<number>, s:
   const root = series(s.last - s.first + 1, (i) => Math.sqrt(time[s.first + i] - s.t0));
   const d = derivativesIn(root, pressure, time, s, true, s.options.smoothing, s.options.bins);
   if (d.hi - d.lo + 1 < MIN_VALID_BINS) return null;
+  if (!spansWindows(d, d.lo, d.hi, MIN_SPANNED_WINDOWS, s.options.smoothing)) return null;
   const k = peakBin(d, d.lo, d.hi);
   if (!declines(d, k) || k - d.lo < 2 || d.hi - k < 2) return null;
-  // The extremum must be a real maximum: the rate falls clearly afterwards.
-  let lowest = d.rate[k];
-  for (let j = k; j <= d.hi; j++) if (Number.isFinite(d.rate[j])) lowest = Math.min(lowest, d.rate[j]);
+  // The maximum must lie a whole window past the first two-sided derivative: at the very
+  // start it is the rising flank of a decline still straight in sqrt(dt), not closure.
+  if (!spansWindows(d, d.lo, k, 1, s.options.smoothing)) return null;
+  // The extremum must be a real maximum: the rate falls clearly afterwards, and stays lower
+  // over at least one whole derivative window past the peak (independent data). Without
+  // that, a short shut-in whose P vs sqrt(dt) is still straight (the rate still rising
+  // towards its pre-closure level) would put a noise wiggle near its end forward as closure.
+  const span = Math.max(3, windowBins(d, k, s.options.smoothing));
+  if (d.hi - k < span) return null;
+  let lowest = Infinity;
+  for (let j = k + span; j <= d.hi; j++) if (Number.isFinite(d.rate[j])) lowest = Math.min(lowest, d.rate[j]);
   if (!(d.rate[k] - lowest > d.rate[k] * s.options.departureFraction + 3 * d.error[k])) return null;
   // Parabola through the three bins around the maximum.
   const [x0, x1, x2] = [d.bins.x[k - 1], d.bins.x[k], d.bins.x[k + 1]];
@@ -405,11 +482,39 @@ function bilinearFrom(time: ArrayLike<number>, pressure: ArrayLike<number>, s: S
   // BILINEAR_SLOPE_RATIO, and two lines fitting four times better than one (common practice).
   const single = fitLine(p, r);
   if (!(best.ratio >= BILINEAR_SLOPE_RATIO) || !(best.rss <= 0.25 * single.residualSd ** 2 * (single.n - 2))) return null;
+  // A gradual change of regime (a leaking shut-in, a slowly closing fracture) is a curve, not
+  // a corner: unless two lines fit four times better than one parabola, their intersection is
+  // an artefact of the fit. The candidate is kept (its disagreement with the other methods is
+  // the quality signal) but marked, so it is never taken as the cycle's closure pick (the
+  // engine's own test; ISRM SM asks for a bilinear trend, Haimson & Cornet 2003).
+  const gradual = !twoLinesBeatParabola(p, r, best.rss);
   // Time: the first bin whose pressure is at or below the intersection.
   let k = 0;
   while (k < points.length - 1 && points[k].p > best.p) k++;
   const t = d.bins.companion[points[k].k];
-  return { method: 'bilinear-dpdt', pressure: best.p, time: t, sampleIndex: nearestSample(time, t) };
+  return { method: 'bilinear-dpdt', pressure: best.p, time: t, sampleIndex: nearestSample(time, t), ...(gradual ? { gradual: true } : {}) };
+}
+
+/**
+ * Two lines must leave at most this fraction of a parabola's residual sum of squares: the same
+ * factor of four the lines must beat one straight line by. On the synthetic records the
+ * gradual change of a leaking DFIT shut-in leaves 31-52 % (its intersection 1.3-1.5 MPa below
+ * closure), tight shut-ins from 2000 m down 1-14 %, but shallow, short-pumped ones up to 55 %
+ * with a good intersection: the test is a caution, not a sharp line. As the bilinear method
+ * is last in preference, a mark only matters when no other method picks.
+ */
+const BILINEAR_OVER_PARABOLA = 0.25;
+
+/** Whether two lines (rss given) fit r(p) clearly better than one parabola (4 vs 3 parameters). */
+function twoLinesBeatParabola(p: number[], r: number[], twoLineRss: number): boolean {
+  const mean = p.reduce((a, v) => a + v, 0) / p.length;
+  const centred = p.map((v) => v - mean);
+  try {
+    const parabola = fitLinearModel([centred, centred.map((v) => v * v)], r, { intercept: true });
+    return twoLineRss <= BILINEAR_OVER_PARABOLA * parabola.rss;
+  } catch {
+    return true; // a degenerate parabola (all p equal) cannot compete with the lines
+  }
 }
 
 /** Method ids of {@link closureCandidates}, in the order they are tried. */
@@ -420,20 +525,27 @@ export type ClosureMethod = (typeof CLOSURE_METHODS)[number];
  * One closure pick by a named method on the shut-in of `cycle`:
  * - 'g-dpdg-tangent': straight line through the origin tangent to G dP/dG; closure where
  *   the curve falls below it (Barree, Barree & Craig 2009, SPE Prod. & Oper. 24(3)). The
- *   tangent slope is the largest -dP/dG (by its lower 2-standard-error bound); the departure
- *   must exceed departureFraction of it plus 3 standard errors over one whole derivative
- *   window; the pick is where that limit is crossed.
+ *   tangent slope is the largest -dP/dG (by its lower 2-standard-error bound) that is not an
+ *   isolated spike (2 standard errors above the median within a window); the departure
+ *   must exceed departureFraction of it plus 3 standard errors over two whole derivative
+ *   windows; the pick is where that limit is crossed.
  * - 'compliance': where -dP/dG starts to increase as the closing fracture stiffens
  *   (McClure et al. 2016, SPE J. 21(4)): a hinged two-segment line fitted to -dP/dG up to
  *   its maximum, closure at the hinge; null unless the rise exceeds 3 departure fractions
- *   plus 3 standard errors (normal leak-off shows none). Here "dP/dG" is the magnitude
+ *   plus 3 standard errors over at least two derivative windows, the hinge lies three windows
+ *   or more past the first derivative and the trend before it falls by less than half that
+ *   rise (normal leak-off shows none). Here "dP/dG" is the magnitude
  *   -dP/dG, as plotted; it picks earlier and higher than the tangent method.
  * - 'sqrt-time': the maximum of -dP/d sqrt(dt), the end of the straight P vs sqrt(dt)
- *   segment (Castillo 1987, SPE 16417, from memory).
+ *   segment (Castillo 1987, SPE 16417, from memory); null unless the rate one derivative
+ *   window past the maximum is lower by departureFraction plus 3 standard errors (a short
+ *   shut-in that ends before closure gives null, not a pick at its end).
  * - 'bilinear-dpdt': two straight lines on |dP/dt| versus P, closure at their intersection
  *   (ISRM SM, Haimson & Cornet 2003); break chosen by least total squared error; null unless
- *   the slopes (of one sign) differ by 1.5 times or more and two lines fit four times better
- *   than one. Approximate where the change of regime is gradual.
+ *   the slopes (of one sign) differ by 1.5 times or more, two lines fit four times better
+ *   than one. When one parabola fits nearly as well (two lines not four times better), the
+ *   change of regime is gradual (a leaking shut-in): the candidate is returned marked
+ *   `gradual: true`, counts in the spread, and is never the cycle's closure pick.
  *
  * @param time elapsed time, s. @param pressure downhole pressure, Pa. @param cycle the cycle.
  * @param method one of {@link CLOSURE_METHODS}. @param options see {@link ShutInOptions}.
