@@ -36,6 +36,11 @@ export interface Pick {
   manual?: boolean;
   /** The reason given for a manual pick. */
   reason?: string;
+  /**
+   * 'lower' when the recorded value can only be a lower bound of the event: the gauge
+   * clipped at its full-scale range at the pick, so the true pressure was higher.
+   */
+  bound?: 'lower';
 }
 
 /** A closure pick by one method, kept so the spread between methods can be reported. */
@@ -46,6 +51,12 @@ export interface ClosureCandidate {
   sampleIndex: number;
   /** G-function value at closure (when the method works in G). */
   g?: number;
+  /**
+   * True when the method's own model fits poorly (bilinear |dP/dt|: the change of regime is
+   * gradual, a curve rather than a corner). Kept for the spread between methods; never the
+   * cycle's closure pick.
+   */
+  gradual?: boolean;
 }
 
 /** Straight-line fit y = intercept + slope x, with its quality. */
@@ -156,6 +167,12 @@ export interface CriterionResult {
   message: string;
   /** How much a failure weighs: 'major' lowers the grade more than 'minor'. */
   severity: 'major' | 'minor';
+  /**
+   * Unit of `value` and `limit` (added for the criteria table): an SI unit ('s', 'Pa/s'),
+   * 'fraction' for a share of a whole (shown as a percentage), 'ratio' for a plain ratio,
+   * 'r2' for a coefficient of determination. Absent: no unit is known.
+   */
+  unit?: string;
 }
 
 export interface QualityResult {

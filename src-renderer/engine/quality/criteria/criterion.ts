@@ -24,10 +24,11 @@ export interface QualityCriterion {
 /**
  * A finding that cannot be judged: pass null, value null, with what is missing.
  * @param message plain words naming what is missing. @param limit the limit that would apply, or null.
- * @returns the finding. @throws nothing. @example notJudged('No shut-in was recorded.')
+ * @param unit unit of the limit (CriterionResult.unit), or undefined.
+ * @returns the finding. @throws nothing. @example notJudged('No shut-in was recorded.', 5e3 / 60, 'Pa/s')
  */
-export function notJudged(message: string, limit: number | null = null): CriterionFinding {
-  return { pass: null, value: null, limit, message };
+export function notJudged(message: string, limit: number | null = null, unit?: string): CriterionFinding {
+  return unit === undefined ? { pass: null, value: null, limit, message } : { pass: null, value: null, limit, message, unit };
 }
 
 /**

@@ -1,6 +1,9 @@
 import type { QualityCriterion } from './criterion';
 import { megapascals, notJudged, percent } from './criterion';
 
+/** Unit of this criterion's value and limit (CriterionResult.unit). */
+const UNIT = 'fraction';
+
 /**
  * Pick agreement: spread (max - min) of the closure picks by different methods, over
  * their mean, at most `pick-agreement.maxSpreadFraction` (5 %), in the latest cycle that
@@ -16,7 +19,7 @@ export const pickAgreement: QualityCriterion = {
     const cycle = [...ctx.cycles]
       .filter((c) => c.closureCandidates.length >= 2)
       .sort((a, b) => b.cycle.index - a.cycle.index)[0];
-    if (!cycle) return notJudged('Fewer than two closure methods found a pick, so their agreement cannot be judged.', limit);
+    if (!cycle) return notJudged('Fewer than two closure methods found a pick, so their agreement cannot be judged.', limit, UNIT);
     const pressures = cycle.closureCandidates.map((c) => c.pressure);
     const lo = Math.min(...pressures);
     const hi = Math.max(...pressures);
@@ -27,6 +30,6 @@ export const pickAgreement: QualityCriterion = {
     const message = pass
       ? `The ${pressures.length} closure picks of cycle ${cycle.cycle.index} agree within ${percent(fraction)} (limit ${percent(limit)}): ${methods}.`
       : `The closure picks of cycle ${cycle.cycle.index} disagree by ${percent(fraction)} (limit ${percent(limit)}): ${methods}; choose and justify one by hand.`;
-    return { pass, value: fraction, limit, message };
+    return { pass, value: fraction, limit, message, unit: UNIT };
   },
 };

@@ -1,6 +1,9 @@
 import type { QualityCriterion } from './criterion';
 import { meanAndDeviation, notJudged, percent } from './criterion';
 
+/** Unit of this criterion's value and limit (CriterionResult.unit). */
+const UNIT = 'fraction';
+
 /**
  * Rate stability: coefficient of variation (SD / mean) of the pump rate while pumping,
  * at most `rate-stability.maxCv` (10 %). Each cycle's pumping period is judged without
@@ -37,11 +40,11 @@ export const rateStability: QualityCriterion = {
       const cv = sd / mean;
       if (!worst || cv > worst.cv) worst = { cv, label: w.label };
     }
-    if (!worst) return notJudged(ctx.type === 'srt' ? 'No stabilised rate steps were found, so the rate cannot be judged.' : 'No pumping period with at least 5 samples was found, so the rate cannot be judged.', limit);
+    if (!worst) return notJudged(ctx.type === 'srt' ? 'No stabilised rate steps were found, so the rate cannot be judged.' : 'No pumping period with at least 5 samples was found, so the rate cannot be judged.', limit, UNIT);
     const pass = worst.cv <= limit;
     const message = pass
       ? `The pump rate was steady: largest variation ${percent(worst.cv)} of the mean (${worst.label}; limit ${percent(limit)}).`
       : `The pump rate was unsteady: it varied by ${percent(worst.cv)} of the mean in ${worst.label} (limit ${percent(limit)}), which bends the loading line and blurs the picks.`;
-    return { pass, value: worst.cv, limit, message };
+    return { pass, value: worst.cv, limit, message, unit: UNIT };
   },
 };

@@ -1,5 +1,9 @@
 import type { QualityCriterion } from './criterion';
 import { firstCycle } from './criterion';
+import { medianSampleInterval } from './sample-interval';
+
+/** Unit of this criterion's value and limit (CriterionResult.unit). */
+const UNIT = 's';
 
 /**
  * Sampling: median sample interval at most `sampling.maxInterval` (1 s) and at least
@@ -19,12 +23,8 @@ export const sampling: QualityCriterion = {
     const maxInterval = limits['sampling.maxInterval'];
     const minSamples = limits['sampling.minLoadingSamples'];
     const n = ctx.time.length;
-    if (n < 2) return { pass: null, value: null, limit: maxInterval, message: 'The record has fewer than two samples.' };
-    const intervals = new Float64Array(n - 1);
-    for (let i = 1; i < n; i++) intervals[i - 1] = ctx.time[i] - ctx.time[i - 1];
-    intervals.sort();
-    const mid = Math.floor(intervals.length / 2);
-    const median = intervals.length % 2 ? intervals[mid] : (intervals[mid - 1] + intervals[mid]) / 2;
+    if (n < 2) return { pass: null, value: null, limit: maxInterval, message: 'The record has fewer than two samples.', unit: UNIT };
+    const median = medianSampleInterval(ctx.time);
     const problems: string[] = [];
     if (median > maxInterval * (1 + ROUNDING_ALLOWANCE)) problems.push(`samples are ${median.toPrecision(3)} s apart (limit ${maxInterval} s), too sparse to resolve leak-off, breakdown and ISIP`);
     const fit = ctx.type === 'srt' ? null : firstCycle(ctx)?.loadingFit ?? null;
@@ -36,6 +36,7 @@ export const sampling: QualityCriterion = {
       value: median,
       limit: maxInterval,
       message: pass ? `Sampling is dense enough: ${median.toPrecision(3)} s between samples${loadingNote}.` : `Sampling is too sparse: ${problems.join('; ')}.`,
+      unit: UNIT,
     };
   },
 };

@@ -2,6 +2,9 @@ import type { CycleAnalysis } from '../../result';
 import type { QualityCriterion } from './criterion';
 import { megapascals, percent } from './criterion';
 
+/** Unit of this criterion's value and limit (CriterionResult.unit). */
+const UNIT = 'fraction';
+
 function relativeDifference(a: number, b: number): number {
   return Math.abs(a - b) / ((a + b) / 2);
 }
@@ -29,7 +32,7 @@ export const secondCycle: QualityCriterion = {
     const minShutIn = limits['shut-in-stability.minDuration'] / 2;
     const cycles = [...ctx.cycles].sort((a, b) => a.cycle.index - b.cycle.index);
     if (cycles.length < 2) {
-      return { pass: false, value: null, limit, message: 'Only one cycle was found: an extended leak-off test needs a second cycle to confirm ISIP and closure.' };
+      return { pass: false, value: null, limit, message: 'Only one cycle was found: an extended leak-off test needs a second cycle to confirm ISIP and closure.', unit: UNIT };
     }
     const problems: string[] = [];
     const notes: string[] = [];
@@ -61,11 +64,11 @@ export const secondCycle: QualityCriterion = {
       else notes.push(text);
     }
     if (problems.length > 0) {
-      return { pass: false, value: worst, limit, message: `The later cycles do not confirm the first: ${problems.join('; ')}.` };
+      return { pass: false, value: worst, limit, message: `The later cycles do not confirm the first: ${problems.join('; ')}.`, unit: UNIT };
     }
     if (worst === null && !(breakdown && reopening)) {
-      return { pass: null, value: null, limit, message: `The later cycles cannot be compared: ${notes.join('; ')}.` };
+      return { pass: null, value: null, limit, message: `The later cycles cannot be compared: ${notes.join('; ')}.`, unit: UNIT };
     }
-    return { pass: true, value: worst, limit, message: `The later cycles repeat: ${notes.join('; ')}.` };
+    return { pass: true, value: worst, limit, message: `The later cycles repeat: ${notes.join('; ')}.`, unit: UNIT };
   },
 };

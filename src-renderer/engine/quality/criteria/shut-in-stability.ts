@@ -2,6 +2,9 @@ import { fitLine } from '../../analysis/least-squares';
 import type { QualityCriterion } from './criterion';
 import { notJudged } from './criterion';
 
+/** Unit of this criterion's value and limit (CriterionResult.unit). */
+const UNIT = 'Pa/s';
+
 /**
  * Shut-in stability, on the longest shut-in of the record: it lasts at least
  * `shut-in-stability.minDuration` (600 s) and the downhole pressure decline over its
@@ -24,14 +27,14 @@ export const shutInStability: QualityCriterion = {
       const duration = ctx.time[shutInEnd] - ctx.time[pumpEnd];
       if (!best || duration > best.duration) best = { start: pumpEnd + 1, end: shutInEnd, duration, cycle: c.cycle.index };
     }
-    if (!best) return notJudged('No shut-in was recorded, so its stability cannot be judged.', maxRate);
+    if (!best) return notJudged('No shut-in was recorded, so its stability cannot be judged.', maxRate, UNIT);
     const tEnd = ctx.time[best.end];
     let first = best.end;
     while (first > best.start && tEnd - ctx.time[first - 1] <= window) first--;
     if (best.end - first + 1 < 3) {
       first = Math.max(best.start, best.end - 2);
     }
-    if (best.end - first + 1 < 3) return notJudged(`The shut-in of cycle ${best.cycle} has fewer than 3 samples, so its stability cannot be judged.`, maxRate);
+    if (best.end - first + 1 < 3) return notJudged(`The shut-in of cycle ${best.cycle} has fewer than 3 samples, so its stability cannot be judged.`, maxRate, UNIT);
     const fit = fitLine(ctx.time, ctx.downholePressure, first, best.end);
     const decline = -fit.slope;
     const perMinute = (decline * 60) / 1e3;
@@ -44,6 +47,6 @@ export const shutInStability: QualityCriterion = {
     const message = pass
       ? `The shut-in of cycle ${best.cycle} lasted ${minutes.toFixed(1)} min and settled: ${perMinute.toFixed(1)} kPa/min at its end (limit ${limitPerMinute.toFixed(1)} kPa/min).`
       : `The shut-in of cycle ${best.cycle} is not stable: ${problems.join('; ')}.`;
-    return { pass, value: decline, limit: maxRate, message };
+    return { pass, value: decline, limit: maxRate, message, unit: UNIT };
   },
 };
