@@ -5,6 +5,9 @@ import { openServices, type OpenedServices } from './services';
 import { routeFromHash, routeToHash, type Route } from './state/route';
 import { rememberedUser, rememberUser } from './state/rememberedUser';
 import { setPendingCommand } from './state/pendingCommand';
+import { rememberedTeamFolder, rememberTeamFolder } from './state/teamFolder';
+import { TeamSync } from '../archive/team-sync';
+import { TeamScreen } from './screens/team/TeamScreen';
 import { StartScreen } from './screens/StartScreen';
 import { ArchiveScreen } from './screens/ArchiveScreen';
 import { ImportScreen } from './screens/ImportScreen';
@@ -17,6 +20,7 @@ const NAV: { screen: Route['screen']; label: string; icon: string; testId: strin
   { screen: 'archive', label: 'Archive', icon: '▤', testId: 'nav-archive' },
   { screen: 'import', label: 'Import', icon: '⇪', testId: 'nav-import' },
   { screen: 'model', label: 'Stress model', icon: '⟂', testId: 'nav-model' },
+  { screen: 'team', label: 'Team', icon: '⇄', testId: 'nav-team' },
   { screen: 'settings', label: 'Settings', icon: '⚙', testId: 'nav-settings' },
 ];
 
@@ -28,6 +32,8 @@ export function App() {
   const [units, setUnitsState] = useState<UnitSystem>('si');
   const [route, setRoute] = useState<Route>(() => routeFromHash(window.location.hash));
   const [toast, setToast] = useState<string | null>(null);
+  const [teamFolder, setTeamFolderState] = useState<string | null>(() => rememberedTeamFolder());
+  const [teamSync, setTeamSync] = useState<TeamSync | null>(null);
 
   useEffect(() => {
     let alive = true;
@@ -72,6 +78,22 @@ export function App() {
     });
   }, [services, user, route.screen, navigate]);
 
+  // One team folder sync per user: started when a folder is chosen (Electron only),
+  // stopped and started again for the new user when the user changes.
+  useEffect(() => {
+    const folderBridge = services?.bridge.teamFolder;
+    if (!services || !user || !teamFolder || !folderBridge) return;
+    const sync = new TeamSync(services.archive, folderBridge, { folder: teamFolder, author: user });
+    setTeamSync(sync);
+    void sync.start();
+    return () => { sync.stop(); setTeamSync(null); };
+  }, [services, user, teamFolder]);
+
+  const setTeamFolder = useCallback((folder: string | null) => {
+    rememberTeamFolder(folder);
+    setTeamFolderState(folder);
+  }, []);
+
   const setUnits = useCallback((u: UnitSystem) => {
     setUnitsState(u);
     void services?.archive.setUnitSystem(u).then(
@@ -82,7 +104,8 @@ export function App() {
 
   const value = useMemo<AppServices | null>(() => (services && user ? {
     archive: services.archive, bridge: services.bridge, engine: services.engine, user, units, setUnits, navigate, notify: setToast,
-  } : null), [services, user, units, setUnits, navigate]);
+    teamSync, teamFolder, setTeamFolder,
+  } : null), [services, user, units, setUnits, navigate, teamSync, teamFolder, setTeamFolder]);
 
   if (loadError) {
     return <div className="start"><div className="card" role="alert"><h1>The archive could not be opened</h1><p>{loadError}</p></div></div>;
@@ -121,6 +144,7 @@ export function App() {
           {route.screen === 'test' && <TestScreen key={route.testId} testId={route.testId} />}
           {route.screen === 'settings' && <SettingsScreen />}
           {route.screen === 'model' && <ConnectedStressModelScreen />}
+          {route.screen === 'team' && <TeamScreen />}
           {route.screen === 'report' && <ConnectedReportScreen key={route.testId ?? route.wellName} testId={route.testId} wellName={route.wellName} />}
         </main>
       </div>

@@ -3,14 +3,14 @@
  * and the bridge to the system. The one place the app wires the layers together.
  */
 import { Archive } from '../archive/archive';
-import type { ArchiveService } from '../archive/api';
+import type { TeamArchiveService } from '../archive/api';
 import { seedDemoArchive } from '../archive/demo';
 import { getBridge } from '../bridge';
 import type { StressLedgerBridge } from '../bridge/types';
 import { AnalysisClient } from './workers/analysisClient';
 
 export interface OpenedServices {
-  archive: ArchiveService;
+  archive: TeamArchiveService;
   bridge: StressLedgerBridge;
   engine: AnalysisClient;
   /** True when the archive was empty and the demo archive was written. */
@@ -35,5 +35,8 @@ async function openServicesOnce(onSeedProgress?: (text: string) => void): Promis
     await seedDemoArchive(archive, { onProgress: onSeedProgress });
     seeded = true;
   }
+  // Start the analysis worker once the window is idle, so the first test opened does not wait for it to load.
+  const whenIdle = (globalThis as { requestIdleCallback?: (work: () => void, options: { timeout: number }) => number }).requestIdleCallback;
+  if (whenIdle) whenIdle(() => engine.warmUp(), { timeout: 3000 }); else setTimeout(() => engine.warmUp(), 1000);
   return { archive, bridge, engine, seeded };
 }

@@ -56,3 +56,15 @@ export function SafetyNote() {
     </p>
   );
 }
+
+/** Marks a test with unresolved team conflicts (two people changed it without seeing each other's change). */
+export function ConflictBadge({ count }: { count: number }) {
+  if (count <= 0) return null;
+  const words = count === 1 ? 'a team conflict to decide' : `${count} team conflicts to decide`;
+  return (
+    <span className="conflict-badge" title={`This test has ${words} (Team screen).`} data-testid="test-conflict-badge" data-count={count}>
+      <span aria-hidden="true">⚠</span> Conflict{count > 1 ? ` ×${count}` : ''}
+      <span className="sr-only">: {words}</span>
+    </span>
+  );
+}

@@ -4,7 +4,7 @@ import type { ReviewState } from '../../archive/events';
 import { GRADES } from '../../engine/result';
 import { TEST_TYPES } from '../../engine/record';
 import { useApp } from '../context';
-import { GradeBadge, StateBadge } from '../components/Badges';
+import { ConflictBadge, GradeBadge, StateBadge } from '../components/Badges';
 import { STATE_STYLE } from '../charts/style';
 import { formatQuantity, equivalentMudDensity, fromDisplay, unitLabel } from '../format/units';
 import { countByState, distinctValues, EMPTY_FILTER, filterTests, sortTests, type ListFilter, type ListSort, type SortKey } from '../state/archiveFilter';
@@ -176,7 +176,7 @@ export function ArchiveScreen() {
                       {emw !== null && <span className="hint"> · {formatQuantity(units, 'emw', emw)}</span>}</>}
                   </div>
                   <div role="gridcell"><GradeBadge grade={t.grade} /></div>
-                  <div role="gridcell"><StateBadge state={t.state} /></div>
+                  <div role="gridcell"><StateBadge state={t.state} /> <ConflictBadge count={t.openConflicts?.length ?? 0} /></div>
                   <div role="gridcell">{t.reviewer ?? <span className="hint">–</span>}</div>
                 </div>
               );

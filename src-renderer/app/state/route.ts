@@ -6,7 +6,8 @@ export type Route =
   | { screen: 'test'; testId: string }
   | { screen: 'report'; testId?: string; wellName?: string }
   | { screen: 'settings' }
-  | { screen: 'model' };
+  | { screen: 'model' }
+  | { screen: 'team' };
 
 export function routeToHash(route: Route): string {
   if (route.screen === 'test') return `#/test/${encodeURIComponent(route.testId)}`;
@@ -23,6 +24,7 @@ export function routeFromHash(hash: string): Route {
     case 'import': return { screen: 'import' };
     case 'settings': return { screen: 'settings' };
     case 'model': return { screen: 'model' };
+    case 'team': return { screen: 'team' };
     case 'test': return parts[1] ? { screen: 'test', testId: decodeURIComponent(parts[1]) } : { screen: 'archive' };
     case 'report':
       if (parts[1] === 'test' && parts[2]) return { screen: 'report', testId: decodeURIComponent(parts[2]) };

@@ -75,6 +75,40 @@ describe('minMaxPerPixel', () => {
     ), { numRuns: 60 });
   });
 
+  it('should keep exactly first, lowest, highest and last of each column when times repeat or leave gaps', () => {
+    // Reference: the definition applied sample by sample (column = floor((x - x0) / span * pixels),
+    // first occurrence on ties), against the run-by-run search over sorted times.
+    fc.assert(fc.property(
+      fc.array(fc.tuple(fc.integer({ min: 0, max: 3 }), fc.integer({ min: -50, max: 50 })), { minLength: 50, maxLength: 3000 }),
+      fc.integer({ min: 1, max: 60 }),
+      (steps, pixels) => {
+        let t = 0;
+        const x = steps.map(([dt]) => (t += dt === 3 ? 40 : dt));
+        const y = steps.map(([, v]) => v);
+        const n = x.length;
+        const span = x[n - 1] - x[0];
+        const expected: number[] = [];
+        if (n <= pixels * 4) for (let i = 0; i < n; i++) expected.push(i);
+        else if (!(span > 0)) expected.push(0, n - 1);
+        else {
+          const groups = new Map<number, { first: number; lo: number; hi: number; last: number }>();
+          for (let i = 0; i < n; i++) {
+            const c = Math.min(pixels - 1, Math.floor(((x[i] - x[0]) / span) * pixels));
+            const g = groups.get(c);
+            if (!g) { groups.set(c, { first: i, lo: i, hi: i, last: i }); continue; }
+            g.last = i;
+            if (y[i] < y[g.lo]) g.lo = i;
+            if (y[i] > y[g.hi]) g.hi = i;
+          }
+          for (const g of groups.values()) {
+            for (const k of [g.first, g.lo, g.hi, g.last].sort((a, b) => a - b)) if (expected[expected.length - 1] !== k) expected.push(k);
+          }
+        }
+        expect(Array.from(minMaxPerPixel(x, y, pixels))).toEqual(expected);
+      },
+    ), { numRuns: 80 });
+  });
+
   it('should return indices in increasing order', () => {
     const n = 50_000;
     const x = Float64Array.from({ length: n }, (_, i) => i * 0.5);

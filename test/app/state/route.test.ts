@@ -4,7 +4,7 @@ import { routeFromHash, routeToHash, type Route } from '../../../src-renderer/ap
 describe('route', () => {
   it('should round-trip every screen through the location hash', () => {
     const routes: Route[] = [
-      { screen: 'start' }, { screen: 'archive' }, { screen: 'import' }, { screen: 'settings' }, { screen: 'model' },
+      { screen: 'start' }, { screen: 'archive' }, { screen: 'import' }, { screen: 'settings' }, { screen: 'model' }, { screen: 'team' },
       { screen: 'test', testId: 'a b/c' }, { screen: 'report', testId: 'x1' }, { screen: 'report', wellName: 'HF-3' },
     ];
     for (const r of routes) expect(routeFromHash(routeToHash(r))).toEqual(r);

@@ -232,7 +232,7 @@ export function StressModelScreen(props: StressModelScreenProps) {
               : <span>No Shmin trend: {model.trend.provenance.filter((x) => x.startsWith('No trend')).join(' ') || 'no accepted tests with a Shmin value.'}</span>}
             {model.cautions.slice(1).map((c) => <p key={c} className="shmax-caution">{c}</p>)}
           </div>
-          <ChartView option={option} label="Depth plot of the regional stress model" testId="model-depth-plot" className="chart-box"
+          <ChartView option={option} label="Depth plot of the regional stress model" testId="model-depth-plot" className="chart-box depth-plot"
             onPickClick={(id) => onOpenTest(id)} />
           <p className="hint">
             Marker shape = grade ({Object.entries(GRADE_SYMBOL).map(([g, s]) => `${g} ${s}`).join(', ')}); colour = well; arrow = FIT lower bound (never fitted);

@@ -13,6 +13,7 @@ import { PICK_STYLE } from '../../charts/style';
 import { placedPicks, timeChartOption } from '../../charts/options';
 import { formatQuantity, type UnitSystem } from '../../format/units';
 import { describeEvent, eventTime } from '../../state/logWords';
+import { criterionCells, criterionName } from '../test/QualityPanel';
 import './report.css';
 
 /** Props of {@link ReportView}. */
@@ -84,19 +85,22 @@ function TestSection({ detail, units }: { detail: TestDetail; units: UnitSystem 
       <table>
         <thead><tr><th>Criterion</th><th>Result</th><th>Value</th><th>Limit</th><th>Explanation</th></tr></thead>
         <tbody>
-          {a.quality.criteria.map((c) => (
-            <tr key={c.id} className={c.pass === false ? 'report-fail' : undefined}>
-              <td>{c.id}</td><td>{c.pass === true ? 'pass' : c.pass === false ? `fail (${c.severity})` : 'cannot judge'}</td>
-              <td>{c.value === null ? '–' : Number(c.value.toPrecision(4))}</td><td>{c.limit === null ? '–' : Number(c.limit.toPrecision(4))}</td><td>{c.message}</td>
-            </tr>
-          ))}
+          {a.quality.criteria.map((c) => {
+            const cells = criterionCells(c, {});
+            return (
+              <tr key={c.id} className={c.pass === false ? 'report-fail' : undefined}>
+                <td>{criterionName(c.id)} <span className="mono">({c.id})</span></td><td>{c.pass === true ? 'pass' : c.pass === false ? `fail (${c.severity})` : 'cannot judge'}</td>
+                <td>{cells.value}{cells.unit && c.value !== null ? ` ${cells.unit}` : ''}</td><td>{cells.limit}{cells.unit && c.limit !== null ? ` ${cells.unit}` : ''}</td><td>{c.message}</td>
+              </tr>
+            );
+          })}
         </tbody>
       </table>
       <h3>Review log</h3>
       <table>
         <thead><tr><th>When</th><th>Who</th><th>What</th></tr></thead>
         <tbody>
-          {detail.log.map((e) => <tr key={e.id}><td>{eventTime(e.time)}</td><td>{e.author}</td><td>{describeEvent(e)}</td></tr>)}
+          {detail.log.map((e) => <tr key={e.id}><td>{eventTime(e.time)}</td><td>{e.author}</td><td>{describeEvent(e, detail.log)}</td></tr>)}
         </tbody>
       </table>
     </section>

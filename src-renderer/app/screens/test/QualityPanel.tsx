@@ -1,4 +1,4 @@
-import type { QualityResult } from '../../../engine/result';
+import type { CriterionResult, QualityResult } from '../../../engine/result';
 import { DEFAULT_LIMITS } from '../../../engine/quality/limits';
 import { CriterionVerdict, GradeBadge } from '../../components/Badges';
 import { GRADE_STYLE } from '../../charts/style';
@@ -41,6 +41,43 @@ export function criterionScale(id: string, limit: number | null, limits: Record<
   return { unit: def.unit, scale: 1 };
 }
 
+/** A criterion's value and limit as the table shows them: text and the unit beside it. */
+export interface CriterionCells { value: string; limit: string; unit: string }
+
+function fixed(v: number | null, digits: number, scale = 1): string {
+  if (v === null || !Number.isFinite(v)) return '–';
+  const x = v * scale;
+  return (Math.abs(x) < 0.5 * 10 ** -digits ? 0 : x).toFixed(digits);
+}
+
+function seconds(v: number | null): string {
+  if (v === null || !Number.isFinite(v)) return '–';
+  if (Math.abs(v) >= 100) return v.toFixed(0);
+  return Number(v.toPrecision(3)).toString();
+}
+
+/**
+ * Value and limit of a criterion for the table, from the unit the engine gives
+ * (CriterionResult.unit): shares as %, R² to 4 decimals, ratios to 2, pressure decline in
+ * kPa/min, times in s. Without a unit, the limit definitions are searched (criterionScale).
+ */
+export function criterionCells(c: CriterionResult, limits: Record<string, number>): CriterionCells {
+  switch (c.unit) {
+    case 'fraction': return { value: fixed(c.value, 1, 100), limit: fixed(c.limit, 1, 100), unit: '%' };
+    case 'r2': {
+      const r2 = (v: number | null) => (v === null || !Number.isFinite(v) ? '–' : `R²\u00a0${fixed(v, 4)}`);
+      return { value: r2(c.value), limit: r2(c.limit), unit: '' };
+    }
+    case 'ratio': return { value: fixed(c.value, 2), limit: fixed(c.limit, 2), unit: '×' };
+    case 'Pa/s': return { value: fixed(c.value, 1, 60 / 1000), limit: fixed(c.limit, 1, 60 / 1000), unit: 'kPa/min' };
+    case 's': return { value: seconds(c.value), limit: seconds(c.limit), unit: 's' };
+    default: {
+      const { unit, scale } = criterionScale(c.id, c.limit, limits);
+      return { value: criterionNumber(c.value === null ? null : c.value * scale), limit: criterionNumber(c.limit === null ? null : c.limit * scale), unit };
+    }
+  }
+}
+
 export function QualityPanel({ quality, limits, preview }: { quality: QualityResult; limits: Record<string, number>; preview?: boolean }) {
   return (
     <section className="panel stack" aria-labelledby="quality-title" data-testid="quality-panel">
@@ -55,12 +92,12 @@ export function QualityPanel({ quality, limits, preview }: { quality: QualityRes
         <thead><tr><th>Criterion</th><th className="num">Value</th><th className="num">Limit</th><th>Result</th></tr></thead>
         <tbody>
           {quality.criteria.map((c) => {
-            const { unit, scale } = criterionScale(c.id, c.limit, limits);
+            const cells = criterionCells(c, limits);
             return (
             <tr key={c.id} data-testid="criterion-row" data-criterion={c.id}>
               <td><div>{criterionName(c.id)}{c.severity === 'major' ? '' : <span className="hint"> (minor)</span>}</div><div className="hint">{c.message}</div></td>
-              <td className="num">{criterionNumber(c.value === null ? null : c.value * scale)}{unit && c.value !== null ? <div className="hint">{unit}</div> : null}</td>
-              <td className="num">{criterionNumber(c.limit === null ? null : c.limit * scale)}{unit && c.limit !== null ? <div className="hint">{unit}</div> : null}</td>
+              <td className="num" data-testid="criterion-value">{cells.value}{cells.unit && c.value !== null ? <span className="hint">{'\u00a0'}{cells.unit}</span> : null}</td>
+              <td className="num" data-testid="criterion-limit">{cells.limit}{cells.unit && c.limit !== null ? <span className="hint">{'\u00a0'}{cells.unit}</span> : null}</td>
               <td><CriterionVerdict pass={c.pass} /></td>
             </tr>
             );

@@ -78,7 +78,7 @@ export function ReviewPanel({ detail, onChanged }: { detail: TestDetail; onChang
         {detail.log.map((e) => (
           <li key={e.id} data-kind={e.body.kind}>
             <div><b>{e.author}</b> · <span className="when">{eventTime(e.time)}</span></div>
-            <div>{describeEvent(e)}</div>
+            <div>{describeEvent(e, detail.log)}</div>
           </li>
         ))}
       </ol>

@@ -2,7 +2,7 @@ import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import type { TestDetail } from '../../../archive/api';
 import type { Pick, PickKind } from '../../../engine/result';
 import { useApp } from '../../context';
-import { GradeBadge, SafetyNote, StateBadge } from '../../components/Badges';
+import { ConflictBadge, GradeBadge, SafetyNote, StateBadge } from '../../components/Badges';
 import { ReasonDialog } from '../../components/Dialog';
 import { placedPicks } from '../../charts/options';
 import { formatQuantity } from '../../format/units';
@@ -108,6 +108,7 @@ export function TestScreen({ testId }: { testId: string }) {
         <div className="head-right">
         <GradeBadge grade={a.quality.grade} large />
         <StateBadge state={s.state} />
+        <ConflictBadge count={s.openConflicts?.length ?? 0} />
         <div className="row no-print" role="group" aria-label="Units">
           <button type="button" className={`btn small${units === 'si' ? ' primary' : ''}`} aria-pressed={units === 'si'} onClick={() => setUnits('si')} data-testid="units-si">SI</button>
           <button type="button" className={`btn small${units === 'oilfield' ? ' primary' : ''}`} aria-pressed={units === 'oilfield'} onClick={() => setUnits('oilfield')} data-testid="units-oilfield">Oilfield</button>
@@ -117,6 +118,12 @@ export function TestScreen({ testId }: { testId: string }) {
         <button type="button" className="btn small no-print" onClick={() => void bridge.printReport(`${s.wellName}-${a.type}-review.pdf`)} data-testid="print-report">Print</button>
         </div>
       </div>
+      {(s.openConflicts?.length ?? 0) > 0 && (
+        <div className="notice bad" data-testid="test-conflict-notice">
+          Two people changed this test without seeing each other&apos;s change. Nothing was chosen for you:{' '}
+          <button type="button" className="btn link" onClick={() => navigate({ screen: 'team' })}>decide the conflict on the Team screen</button>.
+        </div>
+      )}
       {a.warnings.length > 0 && <div className="notice warn"><b>Analysis notes:</b> {a.warnings.join(' ')}</div>}
       <div className="review">
         <TestCharts detail={detail} analysis={a} units={units} selected={selected} onSelect={(k) => { setSelected(k); setSide('picks'); }} onDrop={setEditing} />
