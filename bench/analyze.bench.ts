@@ -28,6 +28,7 @@ import { closeSync, existsSync, mkdirSync, openSync, readFileSync, rmSync, statS
 import { availableParallelism, tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { seededRandom } from '../src-renderer/engine/synthetic/random';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
 const ROWS = 1_000_000;
@@ -36,17 +37,10 @@ const PSI = 6894.757293168361; // Pa (NIST SP 811)
 const BBL = 0.158987294928; // m3 (NIST SP 811)
 const RUNS = 3;
 
-/** Deterministic normal numbers (mulberry32 + Box-Muller). */
+/** Deterministic standard normal numbers from the engine's seeded generator (mulberry32). */
 function normalSource(seed: number): () => number {
-  let a = seed >>> 0;
-  const uniform = (): number => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-  return () => Math.sqrt(-2 * Math.log(1 - uniform())) * Math.cos(2 * Math.PI * uniform());
+  const random = seededRandom(seed);
+  return () => random.normal();
 }
 
 /** Surface pressure (psi) and rate (bbl/min) of the invented XLOT at time t (s). */

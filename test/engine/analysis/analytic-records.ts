@@ -4,6 +4,7 @@
  * seeded Gaussian noise. Pressures are at the tested depth (downhole gauge) unless stated.
  */
 import type { TestMetadata, TestRecord } from '../../../src-renderer/engine/record';
+import { seededRandom } from '../../../src-renderer/engine/synthetic/random';
 
 /** One phase of the history: duration (s), pump rate (m3/s) and pressure as a function of phase time. */
 export interface Phase {
@@ -12,17 +13,10 @@ export interface Phase {
   pressure: (t: number, startPressure: number) => number;
 }
 
-/** Deterministic standard normal numbers (mulberry32 + Box-Muller). */
+/** Deterministic standard normal numbers from the engine's seeded generator (mulberry32). */
 export function normalSource(seed: number): () => number {
-  let a = seed >>> 0;
-  const uniform = (): number => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-  return () => Math.sqrt(-2 * Math.log(1 - uniform())) * Math.cos(2 * Math.PI * uniform());
+  const random = seededRandom(seed);
+  return () => random.normal();
 }
 
 /** Builds a record from phases; `noise` Pa SD on pressure; rate noise as a fraction. */

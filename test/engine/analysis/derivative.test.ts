@@ -2,18 +2,12 @@ import { describe, expect, it } from 'vitest';
 import { binAverages, binnedSlopes, bourdetDerivative, logLogDiagnostic, smoothedDerivative } from '../../../src-renderer/engine/analysis/derivative';
 import { fitLine } from '../../../src-renderer/engine/analysis/least-squares';
 import { EngineError } from '../../../src-renderer/engine/errors';
+import { seededRandom } from '../../../src-renderer/engine/synthetic/random';
 
-/** Deterministic standard normal noise (mulberry32 + Box-Muller), so tests are repeatable. */
+/** Deterministic standard normal numbers from the engine's seeded generator (mulberry32). */
 function noise(seed: number): () => number {
-  let a = seed >>> 0;
-  const uniform = () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-  return () => Math.sqrt(-2 * Math.log(uniform() + 1e-300)) * Math.cos(2 * Math.PI * uniform());
+  const random = seededRandom(seed);
+  return () => random.normal();
 }
 
 describe('derivative', () => {

@@ -10,18 +10,12 @@ import {
 import { gFunction, type GFunctionAlpha } from '../../../src-renderer/engine/analysis/gfunction';
 import type { ClosureCandidate, Cycle } from '../../../src-renderer/engine/result';
 import { EngineError } from '../../../src-renderer/engine/errors';
+import { seededRandom } from '../../../src-renderer/engine/synthetic/random';
 
-/** Deterministic standard normal noise (mulberry32 + Box-Muller). */
+/** Deterministic standard normal numbers from the engine's seeded generator (mulberry32). */
 function noise(seed: number): () => number {
-  let a = seed >>> 0;
-  const uniform = () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-  return () => Math.sqrt(-2 * Math.log(uniform() + 1e-300)) * Math.cos(2 * Math.PI * uniform());
+  const random = seededRandom(seed);
+  return () => random.normal();
 }
 
 /**

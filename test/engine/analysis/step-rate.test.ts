@@ -2,18 +2,12 @@ import { describe, expect, it } from 'vitest';
 import { rateSteps, stepRateAnalysis } from '../../../src-renderer/engine/analysis/step-rate';
 import type { Cycle } from '../../../src-renderer/engine/result';
 import { EngineError } from '../../../src-renderer/engine/errors';
+import { seededRandom } from '../../../src-renderer/engine/synthetic/random';
 
-/** Deterministic standard normal noise (mulberry32 + Box-Muller). */
+/** Deterministic standard normal numbers from the engine's seeded generator (mulberry32). */
 function noise(seed: number): () => number {
-  let a = seed >>> 0;
-  const uniform = () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-  return () => Math.sqrt(-2 * Math.log(uniform() + 1e-300)) * Math.cos(2 * Math.PI * uniform());
+  const random = seededRandom(seed);
+  return () => random.normal();
 }
 
 // 1 bbl = 0.158987294928 m3 exactly (NIST SP 811 App. B.8, 42 US gal of 231 in3).
