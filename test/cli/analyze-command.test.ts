@@ -10,7 +10,7 @@ import { recordToDelimited } from '../../src-renderer/engine/synthetic/delimited
 import { generateSyntheticTest } from '../../src-renderer/engine/synthetic/generate';
 import type { SyntheticTruth } from '../../src-renderer/engine/synthetic/spec';
 
-// The command line's contract is /work/shared/contracts/cli.md (in the repository's shared
+// The command line's contract is shared/contracts/cli.md (in the repository's shared
 // documents): field names, MPa values at depth, exit codes 0/1/2, JSON only on stdout.
 // Fixture files are synthetic contractor-style CSVs whose truth the generator sets.
 const run = promisify(execFile);

@@ -1,6 +1,6 @@
 // Reference values: NIST/ITL Statistical Reference Datasets (StRD), Linear Least Squares
 // Regression (Norris, Pontius, NoInt1, NoInt2, Longley), certified values as printed in the
-// NIST .dat files, copied to /work/shared/reference/strd (see SOURCES.md there).
+// NIST .dat files, copied to shared/reference/strd (see SOURCES.md there).
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import {
@@ -11,8 +11,9 @@ import {
   fitLinearModel,
 } from '../../../src-renderer/engine/analysis/least-squares';
 import { EngineError } from '../../../src-renderer/engine/errors';
+import { referencePath } from '../../support/reference';
 
-const STRD = '/work/shared/reference/strd';
+const STRD = referencePath('strd');
 
 interface Certified {
   n: number;

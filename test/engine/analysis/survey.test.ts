@@ -2,8 +2,9 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { mdAtTvd, minimumCurvature, positionAtMd, tvdAtMd, type SurveyStation } from '../../../src-renderer/engine/analysis/survey';
 import { EngineError } from '../../../src-renderer/engine/errors';
+import { referencePath } from '../../support/reference';
 
-const DIR = '/work/shared/reference/directional';
+const DIR = referencePath('directional');
 const meta = JSON.parse(readFileSync(`${DIR}/iscwsa_wellpaths_meta.json`, 'utf8'));
 
 function readRows(file: string): Record<string, string>[] {

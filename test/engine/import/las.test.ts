@@ -6,11 +6,12 @@ import { parseLasFile, type LasImport } from '../../../src-renderer/engine/impor
 import type { DepthLog } from '../../../src-renderer/engine/record';
 import { normaliseUnitName } from '../../../src-renderer/engine/units/unitNames';
 import { unitDimension, unitFactorToSI } from '../../../src-renderer/engine/units/units';
+import { referencePath } from '../../support/reference';
 
 // LAS corpus: CWLS LAS 1.2/2.0 standard examples and the lasio project's test files (MIT),
-// /work/shared/reference/las-corpus (SOURCES.md section 5). Expected values for the standard
+// shared/reference/las-corpus (SOURCES.md section 5). Expected values for the standard
 // examples: expected-standard-examples.json, read directly from each file's ~C and ~A.
-const CORPUS = '/work/shared/reference/las-corpus';
+const CORPUS = referencePath('las-corpus');
 const read = (rel: string, options = {}) => parseLasFile(new Uint8Array(readFileSync(join(CORPUS, rel))), rel, options);
 const expected: Record<string, { curves: string[]; rows: number; null: number; wrap: boolean; first_row: number[]; last_row: number[] }> =
   JSON.parse(readFileSync(join(CORPUS, 'expected-standard-examples.json'), 'utf8'));

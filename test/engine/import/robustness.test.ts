@@ -4,6 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { EngineError } from '../../../src-renderer/engine/errors';
 import { parseDelimitedTest } from '../../../src-renderer/engine/import/delimitedImport';
 import { parseLasFile } from '../../../src-renderer/engine/import/lasImport';
+import { referencePath } from '../../support/reference';
 
 const tally = { read: 0, refused: 0 };
 
@@ -19,7 +20,7 @@ function readsOrRefuses(read: () => unknown): void {
 }
 
 const lot = readFileSync(`${__dirname}/../../fixtures/import/hf3-lot-comma.csv`, 'utf8');
-const las = readFileSync('/work/shared/reference/las-corpus/cwls-standard-examples/2.0/sample_2.0.las', 'utf8');
+const las = readFileSync(referencePath('las-corpus', 'cwls-standard-examples', '2.0', 'sample_2.0.las'), 'utf8');
 
 /** The text with one random edit: a character deleted, replaced or inserted. */
 const mutated = (text: string) => fc.tuple(fc.nat({ max: text.length - 1 }), fc.constantFrom('', ',', ';', '\t', '\n', '"', 'x', '-', '.', ':', '~', '\u00b0', ' '), fc.constantFrom(0, 1))

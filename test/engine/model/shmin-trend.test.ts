@@ -1,5 +1,5 @@
 // Reference values: NIST/ITL Statistical Reference Datasets (StRD), Linear Least Squares
-// Regression, Norris (certified values copied to /work/shared/reference/strd, SOURCES.md).
+// Regression, Norris (certified values copied to shared/reference/strd, SOURCES.md).
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { EngineError } from '../../../src-renderer/engine/errors';
@@ -7,8 +7,9 @@ import type { Grade } from '../../../src-renderer/engine/result';
 import { fitShminTrend, shminTrendAt, type TrendPoint } from '../../../src-renderer/engine/model/shmin-trend';
 import { studentTQuantile } from '../../../src-renderer/engine/model/student-t';
 import { intervalsFromBreaks } from '../../../src-renderer/engine/model/trend-intervals';
+import { referencePath } from '../../support/reference';
 
-const STRD = '/work/shared/reference/strd';
+const STRD = referencePath('strd');
 
 function norrisPoints(): TrendPoint[] {
   const rows = readFileSync(`${STRD}/Norris.csv`, 'utf8').trim().split(/\r?\n/).slice(1).map((l) => l.split(',').map(Number));

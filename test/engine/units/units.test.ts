@@ -7,8 +7,9 @@ import {
 } from '../../../src-renderer/engine/units/unitDefinitions';
 import { normaliseUnitName } from '../../../src-renderer/engine/units/unitNames';
 import { fromSI, toSI, unitDimension, unitsOfDimension } from '../../../src-renderer/engine/units/units';
+import { referencePath } from '../../support/reference';
 
-const REFERENCE = '/work/shared/reference/units';
+const REFERENCE = referencePath('units');
 
 /** Rows of nist_sp811_factors.csv (NIST SP 811, 2008, Appendix B.8, via CRAN NISTunits; see SOURCES.md section 3). */
 function sp811Rows(): Record<string, string>[] {
