@@ -2,7 +2,7 @@
  * Runs every bench/*.bench.ts in turn (each a standalone tsx script), passes their output
  * through, and prints a summary table of the `BENCH-RESULT {json}` lines they print:
  * {name, metrics: [{metric, value, unit?, target?, met?}]}. Exit status 1 when a bench
- * fails to run or misses a target.
+ * fails to run or misses a target. BENCH_ONLY=app (comma-separated name starts) runs only those.
  */
 import { spawnSync } from 'node:child_process';
 import { readdirSync } from 'node:fs';
@@ -20,7 +20,9 @@ interface Metric {
 const here = dirname(fileURLToPath(import.meta.url));
 const root = join(here, '..');
 const tsx = join(root, 'node_modules', '.bin', 'tsx');
-const benches = readdirSync(here).filter((f) => f.endsWith('.bench.ts')).sort();
+// BENCH_ONLY=app,archive runs only the benches whose names start with one of these.
+const only = (process.env.BENCH_ONLY ?? '').split(',').map((s) => s.trim()).filter(Boolean);
+const benches = readdirSync(here).filter((f) => f.endsWith('.bench.ts') && (only.length === 0 || only.some((o) => f.startsWith(o)))).sort();
 
 const rows: { bench: string; m: Metric }[] = [];
 let failed = false;

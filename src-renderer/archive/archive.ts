@@ -240,7 +240,8 @@ export class Archive implements TeamArchiveService {
     if (this.listCache) return this.listCache;
     const generation = this.cacheGeneration;
     const rows = new Map<string, ListRow>();
-    await this.db.tests.each((row) => { rows.set(row.id, toListRow(row)); });
+    // One bulk read (getAll) rather than a cursor: a cursor costs a round trip per row.
+    for (const row of await this.db.tests.toArray()) rows.set(row.id, toListRow(row));
     if (generation === this.cacheGeneration) this.listCache = rows;
     return rows;
   }
@@ -267,11 +268,14 @@ export class Archive implements TeamArchiveService {
   }
 
   async getTest(testId: string): Promise<TestDetail> {
-    const test = await this.requireTest(testId);
-    const samples = await this.db.samples.get(testId);
+    // The reads go out together, and the review log is read while the engine analyses.
+    const [test, samples, manualPicks, settings] = await Promise.all([
+      this.requireTest(testId), this.db.samples.get(testId), this.manualPicksInForce(testId), this.getSettings(),
+    ]);
     if (!samples) throw new ArchiveError('not-found', `The samples of test ${testId} are missing.`);
-    const manualPicks = await this.manualPicksInForce(testId);
-    const limits = (await this.getSettings()).limits;
+    const limits = settings.limits;
+    const log = this.eventsForTest(testId);
+    log.catch(() => { /* reported where awaited below */ });
     const analysis = await this.engine.analyse(recordOf(test, samples), analysisOptions(test, limits, manualPicks));
     const updated = { ...test, ...summaryFromAnalysis(analysis) };
     if (updated.grade !== test.grade || updated.shmin !== test.shmin || updated.shminKind !== test.shminKind) {
@@ -289,7 +293,7 @@ export class Archive implements TeamArchiveService {
       samples: { time: samples.time, pressure: samples.pressure, rate: samples.rate, volume: samples.volume },
       analysis,
       manualPicks,
-      log: await this.eventsForTest(testId),
+      log: await log,
     };
   }
 

@@ -85,29 +85,36 @@ export function minMaxPerPixel(x: ArrayLike<number>, y: ArrayLike<number>, pixel
   const x0 = x[0];
   const span = x[n - 1] - x0;
   if (!(span > 0)) return Uint32Array.from([0, n - 1]);
-  const kept: number[] = [];
-  let col = -1;
+  // x is non-decreasing, so each column is one run of samples: find where each run
+  // starts (binary search with the same column formula), then scan only y inside it.
+  const columnOf = (i: number) => Math.min(columns - 1, Math.floor(((x[i] - x0) / span) * columns));
+  const kept = new Uint32Array(columns * 4);
+  let count = 0;
+  const keep = (k: number) => { if (count === 0 || kept[count - 1] !== k) kept[count++] = k; };
   let first = 0;
-  let last = 0;
-  let lo = 0;
-  let hi = 0;
-  const flush = () => {
-    const group = [first, lo, hi, last].sort((p, q) => p - q);
-    for (const k of group) if (kept.length === 0 || kept[kept.length - 1] !== k) kept.push(k);
-  };
-  for (let i = 0; i < n; i++) {
-    const c = Math.min(columns - 1, Math.floor(((x[i] - x0) / span) * columns));
-    if (c !== col) {
-      if (col >= 0) flush();
-      col = c; first = i; last = i; lo = i; hi = i;
-    } else {
-      last = i;
-      if (y[i] < y[lo]) lo = i;
-      if (y[i] > y[hi]) hi = i;
+  while (first < n) {
+    // Last sample of the run that starts at `first`: the first index of a higher column, minus one.
+    const col = columnOf(first);
+    let a = first + 1;
+    let b = n;
+    while (a < b) { const m = (a + b) >>> 1; if (columnOf(m) > col) b = m; else a = m + 1; }
+    const last = a - 1;
+    let lo = first;
+    let hi = first;
+    let low = y[first];
+    let high = low;
+    for (let i = first + 1; i <= last; i++) {
+      const v = y[i];
+      if (v < low) { low = v; lo = i; }
+      if (v > high) { high = v; hi = i; }
     }
+    // The four in sample order (first <= lo, hi <= last).
+    keep(first);
+    if (lo <= hi) { keep(lo); keep(hi); } else { keep(hi); keep(lo); }
+    keep(last);
+    first = last + 1;
   }
-  flush();
-  return Uint32Array.from(kept);
+  return kept.slice(0, count);
 }
 
 /**

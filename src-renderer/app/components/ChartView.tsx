@@ -35,8 +35,10 @@ export function ChartView({ option, className, testId, label, draggable = false,
     chart.current = c;
     // The instance on its element, for end-to-end tests that drag a pick (pixel <-> data).
     (host.current as HTMLDivElement & { chart?: unknown }).chart = c;
-    const ro = new ResizeObserver(() => c.resize());
-    ro.observe(host.current);
+    // The observer also reports the size the chart was made with; a re-layout then would redraw for nothing.
+    const el = host.current;
+    const ro = new ResizeObserver(() => { if (el.clientWidth !== c.getWidth() || el.clientHeight !== c.getHeight()) c.resize(); });
+    ro.observe(el);
     let drag: { key: string; seriesId: string; dataIndex: number; moved: boolean } | null = null;
     c.on('mousedown', (params) => {
       const p = params as unknown as { seriesId?: string; name?: string; dataIndex: number };

@@ -61,6 +61,12 @@ export class AnalysisClient implements ArchiveEngine {
     });
   }
 
+  /** Starts the worker ahead of the first request, so its code is loaded when a test is opened (no-op without workers). */
+  warmUp(): void {
+    if (typeof Worker === 'undefined') return;
+    try { this.ensureWorker(); } catch { /* the first request starts it, or reports why it cannot */ }
+  }
+
   parse(bytes: Uint8Array, fileName: string, options?: Record<string, unknown>): Promise<TestRecord> {
     return this.call<TestRecord>({ op: 'parse', bytes, fileName, options });
   }

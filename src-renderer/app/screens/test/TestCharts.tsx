@@ -1,4 +1,4 @@
-import { useMemo, useState } from 'react';
+import { useEffect, useMemo, useState } from 'react';
 import type { TestDetail } from '../../../archive/api';
 import type { AnalysisResult } from '../../../engine/result';
 import type { UnitSystem } from '../../../engine/units/unitSystem';
@@ -28,24 +28,32 @@ export function TestCharts({ detail, analysis, units, selected, onSelect, onDrop
   const [shutInCycle, setShutInCycle] = useState<number>(shutInCycles[0]?.cycle.index ?? 1);
   const [showGauge, setShowGauge] = useState(analysis.hydrostaticCorrection !== 0);
   const picks = useMemo(() => placedPicks(analysis), [analysis]);
+  // The diagnostic charts (shut-in series over every shut-in sample, above all) are built
+  // once the pressure-time chart has been on screen for a frame, so a long record shows at once.
+  const [diagnosticsReady, setDiagnosticsReady] = useState(false);
+  useEffect(() => {
+    let frame = requestAnimationFrame(() => { frame = requestAnimationFrame(() => { timer = window.setTimeout(() => setDiagnosticsReady(true), 0); }); });
+    let timer = 0;
+    return () => { cancelAnimationFrame(frame); clearTimeout(timer); };
+  }, []);
 
   const rangeSeconds = useMemo<[number, number] | null>(() => (range ? [fromDisplay(units, 'time', range[0]), fromDisplay(units, 'time', range[1])] : null), [range, units]);
   const timeOption = useMemo(() => timeChartOption({
     time, gaugePressure: pressure, downholePressure: downhole, rate, picks, units, target: TARGET, range: rangeSeconds, showGauge,
   }), [time, pressure, downhole, rate, picks, units, rangeSeconds, showGauge]);
-  const volumeOption = useMemo(() => (tab === 'volume' ? volumeChartOption({ time, volume, downholePressure: downhole, cycles: analysis.cycles, units, target: TARGET }) : null),
-    [tab, time, volume, downhole, analysis.cycles, units]);
+  const volumeOption = useMemo(() => (diagnosticsReady && tab === 'volume' ? volumeChartOption({ time, volume, downholePressure: downhole, cycles: analysis.cycles, units, target: TARGET }) : null),
+    [diagnosticsReady, tab, time, volume, downhole, analysis.cycles, units]);
   const shutIn = useMemo(() => {
-    if (tab !== 'shutin') return null;
+    if (!diagnosticsReady || tab !== 'shutin') return null;
     const c = analysis.cycles.find((x) => x.cycle.index === shutInCycle && hasShutIn(x));
     try { return c ? shutInDiagnostics(time, downhole, c) : null; } catch { return null; }
-  }, [tab, analysis.cycles, shutInCycle, time, downhole]);
+  }, [diagnosticsReady, tab, analysis.cycles, shutInCycle, time, downhole]);
   const shutInOptions = useMemo(() => (shutIn ? {
     g: gFunctionChartOption(shutIn, units, 1200), sqrt: sqrtTimeChartOption(shutIn, units, 1200), log: logLogChartOption(shutIn, units, 1200),
   } : null), [shutIn, units]);
   const stepOption = useMemo(() => (tab === 'steprate' && stepCycle ? stepRateChartOption({ cycle: stepCycle, units }) : null), [tab, stepCycle, units]);
-  const overlayOption = useMemo(() => (tab === 'overlay' ? cyclesOverlayOption({ time, downholePressure: downhole, cycles: analysis.cycles, units, target: TARGET }) : null),
-    [tab, time, downhole, analysis.cycles, units]);
+  const overlayOption = useMemo(() => (diagnosticsReady && tab === 'overlay' ? cyclesOverlayOption({ time, downholePressure: downhole, cycles: analysis.cycles, units, target: TARGET }) : null),
+    [diagnosticsReady, tab, time, downhole, analysis.cycles, units]);
 
   const cycleOf = (n: number) => analysis.cycles.find((c) => c.cycle.index === n);
 
@@ -130,7 +138,7 @@ export function TestCharts({ detail, analysis, units, selected, onSelect, onDrop
                   <ChartView option={shutInOptions.log} className="chart-box small" testId="chart-loglog" label="Log-log derivative plot" />
                   </div>
                 </div>
-              ) : <p className="hint">This cycle has no shut-in long enough to diagnose.</p>}
+              ) : <p className="hint">{diagnosticsReady ? 'This cycle has no shut-in long enough to diagnose.' : 'Preparing the shut-in diagnostics…'}</p>}
             </div>
           )}
           {tab === 'steprate' && (stepOption
