@@ -180,3 +180,110 @@ describe('model command', () => {
     expect(help.stdout).toMatch(/--min-grade/);
   });
 });
+
+describe('model command inputs besides the tests', () => {
+  const SURVEY = join(process.cwd(), 'demo', 'HF-3_survey.csv');
+  /** Demo HF-3 profile (demo/manifest.json): vertical to 800 m, build 2 deg/30 m to 35 deg at 1325 m MD, hold. */
+  const radius = 30 / ((2 * Math.PI) / 180);
+  const tvdEndOfBuild = 800 + radius * Math.sin((35 * Math.PI) / 180);
+  /** MD at a TVD on the hold (build-and-hold geometry, Bourgoyne et al., Applied Drilling Engineering 1986, ch. 8; from memory). */
+  const mdOnHold = (tvd: number) => 1325 + (tvd - tvdEndOfBuild) / Math.cos((35 * Math.PI) / 180);
+
+  it('should add the MD column of the surveyed well with --survey and --well', async () => {
+    const { code, stdout } = await run(['model', ...files, '--survey', SURVEY, '--well', 'HF-3', '--step', '250m', '--to', '3000m', '--json']);
+    expect(code).toBe(0);
+    const doc = JSON.parse(stdout);
+    expect(doc.settings.survey).toMatchObject({ file: 'HF-3_survey.csv', well: 'HF-3', from: 'option', stations: 134 });
+    const at = (z: number) => doc.table.find((r: { tvd: { value: number } }) => r.tvd.value === z);
+    // Vertical above the kick-off: MD = TVD.
+    expect(at(500).md).toEqual({ value: 500, unit: 'm' });
+    // On the hold the stations are listed to 0.01 deg with the end of build between stations: 0.1 m.
+    for (const z of [1500, 2000, 3000]) expect(Math.abs(at(z).md.value - mdOnHold(z))).toBeLessThan(0.1);
+    expect(doc.provenance.join(' ')).toMatch(/minimum curvature/);
+  });
+
+  it('should convert an MD-indexed density log to TVD with the survey', async () => {
+    // Truth set here: 2.3 g/cm3 everywhere below the ground at the rig floor, so Sv = 2300 g TVD
+    // (hydrostatics, g = 9.80665 m/s2) whatever the path; the log is indexed by MD (DEPT, no DREF).
+    const lines = ['~V', ' VERS. 2.0 : CWLS LOG ASCII STANDARD', ' WRAP. NO :', '~W', ' NULL. -999.25 :', ' WELL. HF-3 : WELL', '~C', ' DEPT.M : MEASURED DEPTH', ' RHOB.G/C3 : BULK DENSITY', '~A'];
+    for (let md = 0; md <= 4000; md += 10) lines.push(`${md} 2.3`);
+    const las = join(dir, 'hf-3-md-density.las');
+    writeFileSync(las, lines.join('\n'));
+    const { code, stdout } = await run(['model', ...files, '--survey', SURVEY, '--density-log', las, '--step', '500m', '--to', '3000m', '--json']);
+    expect(code).toBe(0);
+    const doc = JSON.parse(stdout);
+    expect(doc.provenance.join(' ')).toMatch(/converted to TVD with the well survey/);
+    for (const r of doc.table) expect(r.sv.value).toBeCloseTo((2300 * 9.80665 * r.tvd.value) / 1e6, 3);
+  });
+
+  it('should take a survey and a density log found among the FILEs, say so on stderr and exit 0', async () => {
+    // Truth set here: constant 2.2 g/cm3 below a vertical ground level at the rig floor; Sv = 2200 g z.
+    const depth = Array.from({ length: 701 }, (_, i) => 5 * i);
+    const las = join(dir, 'hf-3-density.las');
+    writeFileSync(las, densityLogToLas({ depth, density: depth.map(() => 2200), well: 'HF-3', field: 'Harrow Flats' }));
+    const { code, stdout, stderr } = await run(['model', ...files, SURVEY, las, '--step', '500m', '--to', '3000m', '--json']);
+    expect(code).toBe(0);
+    expect(stderr).toMatch(/HF-3_survey\.csv is a directional survey, not a test/);
+    expect(stderr).toMatch(/hf-3-density\.las is a depth log, not a test/);
+    const doc = JSON.parse(stdout);
+    expect(doc.tests).toHaveLength(files.length);
+    expect(doc.inputs).toEqual([
+      { file: 'HF-3_survey.csv', role: 'survey', used: true, error: null },
+      { file: 'hf-3-density.las', role: 'density-log', used: true, error: null },
+    ]);
+    expect(doc.settings.survey.well).toBe('HF-3');
+    const row = doc.table.find((r: { tvd: { value: number } }) => r.tvd.value === 2000);
+    expect(Math.abs(row.md.value - mdOnHold(2000))).toBeLessThan(0.1);
+    // Hydrostatics Sv = rho g z (g = 9.80665 m/s2, NIST SP 811); the log is indexed by TVD, so the survey does not convert it.
+    expect(row.sv.value).toBeCloseTo((2200 * 9.80665 * 2000) / 1e6, 3);
+  });
+
+  it('should exit 1 and list a survey among the FILEs whose MD does not increase', async () => {
+    const bad = join(dir, 'bad-survey.csv');
+    writeFileSync(bad, 'Well,HF-3\nMD (m),Inclination (deg),Azimuth (deg)\n0,0,0\n100,1,10\n90,2,10\n');
+    const { code, stdout } = await run(['model', ...files, bad, '--json']);
+    expect(code).toBe(1);
+    const doc = JSON.parse(stdout);
+    expect(doc.inputs[0]).toMatchObject({ file: 'bad-survey.csv', role: 'survey', used: false, error: { code: 'bad-survey', file: 'bad-survey.csv', line: 5, column: 1 } });
+  });
+
+  it('should run Pp through the measurements of the chosen well with --pp-points', async () => {
+    // Truth set here: HF-1 overpressured, 10.5 MPa at 1000 m and 23.0 MPa at 2000 m TVD (3.0 MPa at 300 m for HF-2).
+    const pp = join(dir, 'pp-points.csv');
+    writeFileSync(pp, 'Field,Harrow Flats\n\nWell;TVD (ft);Pp (MPa)\n'.replace(/,/g, ';') + 'HF-1;3280,84;10,5\nHF-1;6561,68;23\nHF-2;984,252;3\n');
+    const { code, stdout } = await run(['model', ...files, '--pp-points', pp, '--well', 'HF-1', '--step', '500m', '--to', '3000m', '--json']);
+    expect(code).toBe(0);
+    const doc = JSON.parse(stdout);
+    expect(doc.settings.porePressureSource).toBe('measurements');
+    expect(doc.settings.porePressurePoints).toEqual({ file: 'pp-points.csv', well: 'HF-1', count: 2 });
+    const at = (z: number) => doc.table.find((r: { tvd: { value: number } }) => r.tvd.value === z).pp.value;
+    // 3280.84 ft = 1000.000 m (international foot 0.3048 m, NIST SP 811): straight lines from 0 at the rig floor.
+    expect(at(500)).toBeCloseTo(5.25, 3);
+    expect(at(1500)).toBeCloseTo(16.75, 3);
+    // Below the deepest point: 23 MPa + 10 kPa/m (the hydrostatic default, common practice).
+    expect(at(3000)).toBeCloseTo(33, 3);
+    // Several wells in the file and none chosen: bad arguments.
+    expect((await run(['model', ...files, '--pp-points', pp, '--json'])).code).toBe(2);
+  });
+
+  it('should exit 0 with only the JSON on stdout when run as a program with a survey among the FILEs', () => {
+    // contracts/cli.md: with --json only the JSON goes to stdout; the note goes to stderr.
+    const stdout = execFileSync('npx', ['tsx', 'src-renderer/engine/cli/main.ts', 'model', ...files.slice(0, 5), SURVEY, '--step', '500m', '--json'], { cwd: process.cwd(), encoding: 'utf8', stdio: ['ignore', 'pipe', 'pipe'] });
+    const doc = JSON.parse(stdout);
+    expect(doc.tests).toHaveLength(5);
+    expect(doc.inputs).toEqual([{ file: 'HF-3_survey.csv', role: 'survey', used: true, error: null }]);
+    expect(doc.table.some((r: { md?: unknown }) => r.md !== undefined)).toBe(true);
+  });
+
+  it('should print the MD column in the text summary', async () => {
+    const { code, stdout } = await run(['model', ...files, '--survey', SURVEY, '--step', '500m', '--to', '3000m']);
+    expect(code).toBe(0);
+    expect(stdout).toMatch(/TVD m\s+MD m/);
+    expect(stdout).toMatch(/^\s+500\s+500\.0\s/m);
+  });
+
+  it('should document the survey, well and pore-pressure options in --help', async () => {
+    const help = await run(['model', '--help']);
+    for (const word of ['--survey FILE', '--well NAME', '--pp-points FILE', 'density log']) expect(help.stdout).toContain(word);
+  });
+});

@@ -5,28 +5,29 @@
  * writes the export as well. JSON pressures are MPa and depths m, whatever --units says
  * (--units chooses the units of the exported file).
  */
-import { readFile, writeFile } from 'node:fs/promises';
+import { writeFile } from 'node:fs/promises';
 import { basename, extname } from 'node:path';
 import { EngineError, isEngineError } from '../errors';
 import { stressTableCsv } from '../export/csv';
 import { stressTableXlsx } from '../export/xlsx';
-import { parseLasFile } from '../import/lasImport';
-import { porePressureFromGradient, type PorePressureProfile } from '../model/pore-pressure';
+import { measuredDepthAtTvd } from '../model/well-path';
 import { buildRegionalModel, stressTable, type ModelTestInput, type RegionalModel, type StressTableRow } from '../model/regional-model';
 import { intervalsFromBreaks } from '../model/trend-intervals';
-import { verticalStressFromDensityLog, verticalStressFromGradient, type OverburdenSettings, type VerticalStressProfile } from '../model/vertical-stress';
+import type { OverburdenSettings, VerticalStressProfile } from '../model/vertical-stress';
 import { GRADES, type Grade } from '../result';
 import { parseQuantity } from '../units/parseQuantity';
 import type { UnitSystem } from '../units/unitSystem';
 import { analyzeFilesForCli, type CliFileOutcome } from './analyze-files';
 import { SAFETY_CAUTION } from './caution';
 import { errorJson, rounded, TOOL_NAME } from './json-output';
+import { sideInputs, sortModelFiles, verticalStressProfile, type ModelSideInputs, type SideFile } from './model-inputs';
 import { parseCliArguments, type CliArguments } from './options';
 import { badArguments, TOOL_VERSION } from './run-cli';
 
 /** Value options of `model` beyond the shared ones. */
 export const MODEL_OPTIONS = [
   'min-grade', 'step', 'from', 'to', 'format', 'out', 'units', 'friction', 'water-depth', 'rig-floor', 'density-log', 'breaks',
+  'survey', 'well', 'pp-points',
 ] as const;
 
 export const MODEL_USAGE = `Stress Ledger command line: regional stress model from tested files.
@@ -43,7 +44,16 @@ Model options:
   --step VALUE[UNIT]         table depth step (default 100m)
   --from VALUE[UNIT]         first table TVD (default one step)
   --to VALUE[UNIT]           last table TVD (default the deepest test, rounded up to a step)
-  --pp GRADIENT              pore-pressure gradient of the model (default 10.0kPa/m, hydrostatic)
+  --pp GRADIENT              pore-pressure gradient of the model (default 10.0kPa/m, hydrostatic);
+                             with --pp-points, the gradient below the deepest measurement
+  --pp-points FILE           pore-pressure measurements (CSV/TXT with a TVD column and a Pp column,
+                             units in the headers, e.g. "TVD (m),Pp (MPa)"; Pp may also be a
+                             gradient or EMW, e.g. "Pp (sg)"; an optional Well column): Pp joined
+                             by straight lines through them instead of the gradient
+  --survey FILE              directional survey of one well (CSV/TXT with MD, inclination and
+                             azimuth columns, MD in m or ft; or LAS with INC and AZI curves):
+                             adds the MD column to the table (MD at each TVD, minimum curvature)
+  --well NAME                the well of --survey and --pp-points (default the well the file names)
   --sv GRADIENT              overburden gradient below the mudline (default 1psi/ft = 22.62kPa/m)
   --density-log FILE.las     vertical stress from a bulk-density log instead
   --water-depth VALUE[UNIT]  water depth offshore (default 0, onshore)
@@ -54,6 +64,10 @@ Model options:
   --out FILE                 export file; the format follows its extension when --format is absent
   --units si|oilfield        units of the export (default si); the JSON is always MPa and m
   --json                     print only the JSON document on stdout
+
+A depth-indexed LAS with a bulk-density curve among the FILEs is taken as the density log
+(unless --density-log is given), and a survey file among the FILEs as the survey (unless
+--survey is given); stderr says so and they do not count as tests (exit status stays 0).
 
 ${SAFETY_CAUTION}
 `;
@@ -69,6 +83,9 @@ interface ModelCliSettings {
   friction: number;
   overburden: OverburdenSettings;
   densityLog: string | null;
+  survey: string | null;
+  well: string | null;
+  ppPoints: string | null;
   /** Trend break depths, m (empty: one line). */
   breaks: number[];
 }
@@ -111,6 +128,9 @@ function modelSettings(args: CliArguments): ModelCliSettings {
       rigFloorElevation: x['rig-floor'] === undefined ? 0 : length(x['rig-floor'], 'rig-floor', true),
     },
     densityLog: x['density-log'] ?? null,
+    survey: x.survey ?? null,
+    well: x.well?.trim() || null,
+    ppPoints: x['pp-points'] ?? null,
     breaks: x.breaks === undefined ? [] : x.breaks.split(',').map((b) => length(b.trim(), 'breaks', false)),
   };
   if (x.from !== undefined) settings.from = length(x.from, 'from', true);
@@ -125,23 +145,6 @@ function modelSettings(args: CliArguments): ModelCliSettings {
     throw new EngineError('bad-argument', 'for the model --pp must be a gradient (e.g. 10kPa/m or 0.45psi/ft)', {}, 'a gradient');
   }
   return settings;
-}
-
-async function verticalStressProfile(args: CliArguments, s: ModelCliSettings): Promise<VerticalStressProfile | undefined> {
-  if (s.densityLog) {
-    const file = basename(s.densityLog);
-    let bytes: Uint8Array;
-    try {
-      bytes = new Uint8Array(await readFile(s.densityLog));
-    } catch {
-      throw new EngineError('file-not-found', `cannot read the density log ${s.densityLog}`, { file }, 'a readable LAS file');
-    }
-    const parsed = parseLasFile(bytes, file);
-    if (parsed.kind !== 'log') throw new EngineError('bad-las', 'the density log is indexed by time, not depth', { file }, 'a depth-indexed LAS log');
-    return verticalStressFromDensityLog(parsed.log, s.overburden);
-  }
-  if (args.sv?.kind === 'gradient') return verticalStressFromGradient(args.sv.value, s.overburden);
-  return undefined;
 }
 
 /** The model's view of one analysed file. */
@@ -178,11 +181,14 @@ function tableRowJson(r: StressTableRow): Record<string, unknown> {
  * The `model --json` document: tool, caution, tests, shminTrend (null when no line could
  * be fitted), table, plus settings, provenance and cautions (added fields).
  *
+ * `inputs` lists the FILEs taken as density log or survey (role, used, error).
+ *
  * @param model the fitted model. @param rows its table. @param outcomes per-file analyses.
- * @param settings the command's settings. @returns the JSON object.
- * @example JSON.stringify(modelDocument(model, rows, outcomes, settings))
+ * @param settings the command's settings. @param inputs the side inputs used. @param side FILEs that were not tests.
+ * @returns the JSON object.
+ * @example JSON.stringify(modelDocument(model, rows, outcomes, settings, inputs, side))
  */
-function modelDocument(model: RegionalModel, rows: StressTableRow[], outcomes: CliFileOutcome[], settings: ModelCliSettings): Record<string, unknown> {
+function modelDocument(model: RegionalModel, rows: StressTableRow[], outcomes: CliFileOutcome[], settings: ModelCliSettings, inputs: ModelSideInputs, side: SideFile[]): Record<string, unknown> {
   const byId = new Map(model.tests.map((t) => [t.testId, t]));
   const tests = outcomes.map((o) => {
     const t = byId.get(o.path);
@@ -225,7 +231,18 @@ function modelDocument(model: RegionalModel, rows: StressTableRow[], outcomes: C
       breaks: settings.breaks.map((b) => q(b, 'm', 1)),
       waterDepth: q(settings.overburden.waterDepth ?? 0, 'm', 1), rigFloorElevation: q(settings.overburden.rigFloorElevation ?? 0, 'm', 1),
       units: settings.units, export: settings.out ? { format: settings.format, file: settings.out } : null,
+      densityLog: inputs.densityLog ? { file: inputs.densityLog.file, from: inputs.densityLog.given } : null,
+      survey: inputs.wellPath
+        ? { file: inputs.wellPath.file, from: inputs.wellPath.given, well: inputs.wellPath.well, stations: inputs.wellPath.path.length, mdRange: { from: q(inputs.wellPath.path[0].md, 'm', 1), to: q(inputs.wellPath.path[inputs.wellPath.path.length - 1].md, 'm', 1) } }
+        : null,
+      porePressurePoints: inputs.porePressurePoints,
+      porePressureSource: model.porePressure.source,
     },
+    inputs: side.map((f) => ({
+      file: f.file, role: f.role,
+      used: !f.error && (f.role === 'density-log' ? inputs.densityLog?.file === f.file && inputs.densityLog.given === 'file' : inputs.wellPath?.file === f.file && inputs.wellPath.given === 'file'),
+      error: f.error ? errorJson(f.error) : null,
+    })),
     provenance: model.provenance,
     cautions: model.cautions,
   };
@@ -260,6 +277,9 @@ export async function runModelCommand(
   let args: CliArguments;
   let settings: ModelCliSettings;
   let sv: VerticalStressProfile | undefined;
+  let side: SideFile[];
+  let testFiles: string[];
+  let inputs: ModelSideInputs;
   try {
     args = parseCliArguments(list, MODEL_OPTIONS);
     if (args.help) {
@@ -268,24 +288,26 @@ export async function runModelCommand(
     }
     if (args.files.length === 0) throw new EngineError('bad-argument', 'no file to model', {}, 'one or more file paths after "model"');
     settings = modelSettings(args);
-    sv = await verticalStressProfile(args, settings);
+    ({ tests: testFiles, side } = await sortModelFiles(args.files));
+    inputs = await sideInputs(args, settings, side, cio.stderr);
+    sv = verticalStressProfile(args, settings, inputs);
   } catch (e) {
     return badArguments(e, wantsJson, cio);
   }
-  const outcomes = await analyzeFilesForCli(args.files, args, { stderr: cio.stderr });
-  const inputs = outcomes.map(modelInput).filter((t): t is ModelTestInput => t !== null);
-  const pp: PorePressureProfile | undefined = args.pp?.kind === 'gradient'
-    ? porePressureFromGradient(args.pp.value, settings.overburden.rigFloorElevation ?? 0)
-    : undefined;
-  let status = outcomes.some((o) => o.error) ? 1 : 0;
+  for (const f of side) if (f.error) cio.stderr.write(`error: ${f.error.message}\n`);
+  const outcomes = await analyzeFilesForCli(testFiles, args, { stderr: cio.stderr });
+  const tests = outcomes.map(modelInput).filter((t): t is ModelTestInput => t !== null);
+  let status = outcomes.some((o) => o.error) || side.some((f) => f.error) ? 1 : 0;
   try {
-    const model = buildRegionalModel(inputs, {
+    const model = buildRegionalModel(tests, {
       minGrade: settings.minGrade, acceptedOnly: false, frictionCoefficient: settings.friction,
-      overburden: settings.overburden, verticalStress: sv, porePressure: pp,
+      overburden: settings.overburden, verticalStress: sv, porePressure: inputs.porePressure,
       trend: settings.breaks.length ? { shape: { kind: 'intervals', intervals: intervalsFromBreaks(settings.breaks) } } : undefined,
     });
     const range = tableRange(model, settings);
-    const rows = stressTable(model, { from: range.from, to: range.to, step: settings.step });
+    const path = inputs.wellPath;
+    if (path) model.provenance.push(path.provenance);
+    const rows = stressTable(model, { from: range.from, to: range.to, step: settings.step, ...(path ? { well: path.well, mdAtTvd: (z: number) => measuredDepthAtTvd(path, z) } : {}) });
     if (!model.trend.segments.length) cio.stderr.write(`warning: no Shmin trend: ${model.trend.provenance.filter((p) => p.startsWith('No trend')).join(' ')}\n`);
     if (settings.out && settings.format) {
       const context = { appVersion: TOOL_VERSION, date: new Date().toISOString(), unitSystem: settings.units, title: 'Regional stress table (command line)' };
@@ -300,7 +322,7 @@ export async function runModelCommand(
         status = 1;
       }
     }
-    const doc = modelDocument(model, rows, outcomes, settings);
+    const doc = modelDocument(model, rows, outcomes, settings, inputs, side);
     if (args.json) cio.stdout.write(JSON.stringify(doc, null, 2) + '\n');
     else cio.stdout.write(modelSummaryText(model, rows));
     return status;
@@ -317,10 +339,12 @@ function modelSummaryText(model: RegionalModel, rows: StressTableRow[]): string 
   lines.push(seg
     ? `Shmin = ${(seg.intercept / MPA).toFixed(3)} MPa + ${(seg.gradient / 1e3).toFixed(3)} kPa/m x TVD (R2 ${seg.r2.toFixed(4)}, n ${seg.n})`
     : 'No Shmin trend could be fitted.');
-  lines.push('TVD m    Pp MPa   Shmin MPa (low-high)        Sv MPa   SHmax MPa (low-high)');
+  const withMd = rows.some((r) => r.md !== null);
+  lines.push(`TVD m  ${withMd ? '  MD m  ' : ''}  Pp MPa   Shmin MPa (low-high)        Sv MPa   SHmax MPa (low-high)`);
   for (const r of rows) {
     const f = (v: number | null) => (v === null ? '   -   ' : (v / MPA).toFixed(2).padStart(7));
-    lines.push(`${r.tvd.toFixed(0).padStart(6)}  ${f(r.pp)}  ${f(r.shmin)} (${f(r.shminLow)}-${f(r.shminHigh)})  ${f(r.sv)}  ${f(r.shmaxLow)}-${f(r.shmaxHigh)}`);
+    const md = withMd ? `  ${r.md === null ? '     -' : r.md.toFixed(1).padStart(7)}` : '';
+    lines.push(`${r.tvd.toFixed(0).padStart(6)}${md}  ${f(r.pp)}  ${f(r.shmin)} (${f(r.shminLow)}-${f(r.shminHigh)})  ${f(r.sv)}  ${f(r.shmaxLow)}-${f(r.shmaxHigh)}`);
   }
   lines.push('', SAFETY_CAUTION, '');
   return lines.join('\n');

@@ -1,6 +1,7 @@
 /**
  * The stress model screen wired to the app: tests from the archive (reloaded on every
- * change), well elevations, the bridge's saveFile, navigation to a test on click. The
+ * change), well elevations and surveys (a survey loaded on the screen is stored with the
+ * archive's setWellSurvey), the bridge's saveFile and openFiles, navigation to a test on click. The
  * analyses of accepted multi-cycle tests are loaded afterwards for their reopening SHmax.
  */
 import { useEffect, useState } from 'react';
@@ -26,7 +27,7 @@ export function ConnectedStressModelScreen() {
       const [summaries, fields, wellRows] = await Promise.all([archive.listTests(), archive.listFields(), archive.listWells()]);
       if (!alive) return;
       const fieldName = new Map(fields.map((f) => [f.id, f.name]));
-      setWells(wellRows.map((w) => ({ name: w.name, fieldName: fieldName.get(w.fieldId) ?? '', rigFloorElevation: w.rigFloorElevation, waterDepth: w.waterDepth, survey: w.survey })));
+      setWells(wellRows.map((w) => ({ id: w.id, name: w.name, fieldName: fieldName.get(w.fieldId) ?? '', rigFloorElevation: w.rigFloorElevation, waterDepth: w.waterDepth, survey: w.survey })));
       setTests(summaries.map((s) => modelInputFromSummary(s)));
       const multiCycle = summaries.filter((s: TestSummary) => s.state === 'accepted' && s.type === 'xlot').slice(0, MAX_DETAILS);
       const details = new Map<string, ModelTestInput>();
@@ -57,6 +58,10 @@ export function ConnectedStressModelScreen() {
       onOpenTest={(testId) => navigate({ screen: 'test', testId })}
       saveFile={(name, bytes, mime) => bridge.saveFile(name, bytes, mime)}
       openFiles={(options) => bridge.openFiles(options)}
+      saveWellSurvey={async (well, stations, sourceFile) => {
+        if (well.id === undefined) throw new Error(`well ${well.name} is not in the archive`);
+        await archive.setWellSurvey(well.id, stations, user, sourceFile);
+      }}
       notify={notify}
     />
   );

@@ -1,7 +1,8 @@
 /**
  * The regional stress model screen: the depth plot (TVD down) of Sv, Pp, the Shmin trend
  * from accepted tests with its bands, SHmax bounds and the tests themselves; the choice of
- * field and wells, axis (pressure / gradient / EMW), model inputs, and the CSV / XLSX
+ * field and wells, axis (pressure / gradient / EMW), model inputs (gradients, a density log,
+ * pore-pressure measurements, a well's survey for the MD column), and the CSV / XLSX
  * export of the stress table. The logic lives in engine/model and engine/export; this
  * component only holds the choices and draws.
  */
@@ -11,17 +12,21 @@ import { SafetyNote } from '../../components/Badges';
 import { fromDisplay, toDisplay, unitLabel, type UnitSystem } from '../../format/units';
 import { stressTableCsv } from '../../../engine/export/csv';
 import { stressTableXlsx } from '../../../engine/export/xlsx';
-import { porePressureFromGradient } from '../../../engine/model/pore-pressure';
+import { porePressureFromGradient, porePressureFromMeasurements } from '../../../engine/model/pore-pressure';
+import { parsePorePressureFile, pointsOfWell, type PorePressurePoint } from '../../../engine/model/pore-pressure-file';
+import { measuredDepthAtTvd, trueVerticalDepthAtMd, wellPathFromSurvey } from '../../../engine/model/well-path';
+import { parseSurveyFile } from '../../../engine/import/survey-import';
 import { buildRegionalModel, stressTable, type ModelTestInput, type RegionalModel, type StressTableRow } from '../../../engine/model/regional-model';
 import { parseLasFile } from '../../../engine/import/lasImport';
 import type { DepthLog } from '../../../engine/record';
 import { intervalsFromBreaks } from '../../../engine/model/trend-intervals';
 import { verticalStressFromDensityLog, verticalStressFromGradient } from '../../../engine/model/vertical-stress';
-import { mdAtTvd, minimumCurvature, tvdAtMd } from '../../../engine/analysis/survey';
 import { depthPlotOption, wellColors, GRADE_SYMBOL, type DepthAxisMode } from './depthPlotOption';
 
 /** Elevations of a well, m (rig floor above sea level or ground; water depth offshore). */
 export interface ModelWell {
+  /** Archive id of the well (needed to store a survey loaded here). */
+  id?: string;
   name: string; fieldName: string; rigFloorElevation?: number; waterDepth?: number;
   /** Directional survey (MD m, inclination and azimuth in degrees); gives the table's MD column when this well alone is chosen. */
   survey?: { md: number; inc: number; azi: number }[];
@@ -49,6 +54,10 @@ export interface StressModelScreenProps {
   loading?: boolean;
   /** Lets the user pick a bulk-density log (LAS) for Sv: the bridge's openFiles. Without it the screen offers gradients only. */
   openFiles?: (options: { accept?: string[]; multiple?: boolean }) => Promise<{ name: string; bytes: Uint8Array }[]>;
+  /** Stores a survey loaded here for a well without one (the archive's setWellSurvey); without it no survey can be loaded. */
+  saveWellSurvey?: (well: ModelWell, stations: { md: number; inc: number; azi: number }[], sourceFile: string) => Promise<void>;
+  /** Pore-pressure measurements to start with (otherwise loaded with openFiles). */
+  porePressurePoints?: { file: string; points: PorePressurePoint[] } | null;
 }
 
 const CSV_MIME = 'text/csv';
@@ -62,8 +71,9 @@ function numberInput(value: string): number | null {
 
 /** The depth-plot screen of the regional stress model. */
 export function StressModelScreen(props: StressModelScreenProps) {
-  const { tests, units, onOpenTest, saveFile, appVersion, user, wells = [], notify, loading, openFiles } = props;
+  const { tests, units, onOpenTest, saveFile, appVersion, user, wells = [], notify, loading, openFiles, saveWellSurvey } = props;
   const [densityLog, setDensityLog] = useState<DepthLog | null>(null);
+  const [ppPoints, setPpPoints] = useState<{ file: string; points: PorePressurePoint[] } | null>(props.porePressurePoints ?? null);
   const fields = useMemo(() => [...new Set(tests.map((t) => t.field))].sort(), [tests]);
   const [field, setField] = useState<string>('');
   const activeField = field || fields[0] || '';
@@ -89,13 +99,16 @@ export function StressModelScreen(props: StressModelScreenProps) {
       const wd = numberInput(waterDepth) ?? (single?.waterDepth !== undefined ? toDisplay(units, 'depth', single.waterDepth) : 0);
       const rf = numberInput(rigFloor) ?? (single?.rigFloorElevation !== undefined ? toDisplay(units, 'depth', single.rigFloorElevation) : 0);
       const overburden = { waterDepth: fromDisplay(units, 'depth', wd), rigFloorElevation: fromDisplay(units, 'depth', rf) };
-      const path = single?.survey && single.survey.length > 1
-        ? minimumCurvature(single.survey, { tvd: single.survey[0].md, north: 0, east: 0 })
-        : null;
+      const path = single?.survey && single.survey.length > 1 ? wellPathFromSurvey(single.name, single.survey) : null;
       const sv = densityLog
-        ? verticalStressFromDensityLog(densityLog, { ...overburden, indexToTvd: path && densityLog.indexKind !== 'tvd' ? (md) => tvdAtMd(path, md) ?? md : undefined })
+        ? verticalStressFromDensityLog(densityLog, { ...overburden, indexToTvd: path && densityLog.indexKind !== 'tvd' ? (md) => trueVerticalDepthAtMd(path, md) : undefined })
         : verticalStressFromGradient(fromDisplay(units, 'gradient', numberInput(svGradient) ?? NaN), overburden);
-      const pp = porePressureFromGradient(fromDisplay(units, 'gradient', numberInput(ppGradient) ?? NaN), overburden.rigFloorElevation);
+      const ppGradientSI = fromDisplay(units, 'gradient', numberInput(ppGradient) ?? NaN);
+      let pp = porePressureFromGradient(ppGradientSI, overburden.rigFloorElevation);
+      if (ppPoints) {
+        const chosen = pointsOfWell(ppPoints.points, single?.name, ppPoints.file);
+        pp = porePressureFromMeasurements(chosen.points, { datum: overburden.rigFloorElevation, gradientBelow: ppGradientSI, well: chosen.well });
+      }
       const breakDepths = breaks.split(/[;,\s]+/).filter((b) => b !== '').map((b) => fromDisplay(units, 'depth', numberInput(b) ?? NaN));
       const model = buildRegionalModel(tests, {
         field: activeField, wells: chosenWells, acceptedOnly: true, minGrade: 'D',
@@ -103,15 +116,41 @@ export function StressModelScreen(props: StressModelScreenProps) {
         trend: breakDepths.length ? { shape: { kind: 'intervals', intervals: intervalsFromBreaks(breakDepths) } } : undefined,
       });
       const stepM = fromDisplay(units, 'depth', numberInput(step) ?? NaN);
+      if (path) model.provenance.push(path.provenance);
       const depths = model.tests.filter((t) => t.tvd !== null && t.field === activeField).map((t) => t.tvd!);
       const deepest = depths.length ? Math.max(...depths) : 3000;
       const to = Math.max(stepM * 2, Math.ceil((deepest * 1.1) / stepM) * stepM);
-      const rows = stressTable(model, { from: stepM, to, step: stepM, well: single?.name, mdAtTvd: path ? (z) => mdAtTvd(path, z) : undefined });
+      const rows = stressTable(model, { from: stepM, to, step: stepM, well: single?.name, mdAtTvd: path ? (z) => measuredDepthAtTvd(path, z) : undefined });
       return { model, rows };
     } catch (e) {
       return { error: e instanceof Error ? e.message : String(e) };
     }
-  }, [tests, activeField, chosenWells, friction, svGradient, ppGradient, waterDepth, rigFloor, step, units, single, densityLog, breaks]);
+  }, [tests, activeField, chosenWells, friction, svGradient, ppGradient, waterDepth, rigFloor, step, units, single, densityLog, breaks, ppPoints]);
+
+  async function loadPorePressurePoints() {
+    if (!openFiles) return;
+    try {
+      const [file] = await openFiles({ accept: ['.csv', '.txt', '.tsv'], multiple: false });
+      if (!file) return;
+      setPpPoints({ file: file.name, points: parsePorePressureFile(file.bytes, file.name) });
+    } catch (e) {
+      notify?.(`The pore-pressure measurements could not be used: ${e instanceof Error ? e.message : String(e)}`);
+    }
+  }
+
+  async function loadSurvey() {
+    if (!openFiles || !saveWellSurvey || !single) return;
+    try {
+      const [file] = await openFiles({ accept: ['.csv', '.txt', '.tsv', '.las'], multiple: false });
+      if (!file) return;
+      const survey = parseSurveyFile(file.bytes, file.name);
+      await saveWellSurvey(single, survey.stations, file.name);
+      const other = survey.well && survey.well !== single.name ? ` (the file names well ${survey.well})` : '';
+      notify?.(`Survey of ${single.name} stored from ${file.name}: ${survey.stations.length} stations${other}.`);
+    } catch (e) {
+      notify?.(`The survey could not be used: ${e instanceof Error ? e.message : String(e)}`);
+    }
+  }
 
   async function loadDensityLog() {
     if (!openFiles) return;
@@ -209,11 +248,18 @@ export function StressModelScreen(props: StressModelScreenProps) {
               ? <span data-testid="model-density-log">Sv from density log {densityLog.fileName} <button type="button" className="btn small" onClick={() => setDensityLog(null)}>Use a gradient</button></span>
               : <label>Sv gradient [{unitLabel(units, 'gradient')}] <input size={6} value={svGradient} onChange={(e) => setSvGradient(e.target.value)} data-testid="model-sv-gradient" /></label>}
             {openFiles && !densityLog && <button type="button" className="btn small" onClick={() => void loadDensityLog()} data-testid="model-load-density">Sv from density log (LAS)…</button>}
-            <label>Pp gradient [{unitLabel(units, 'gradient')}] <input size={6} value={ppGradient} onChange={(e) => setPpGradient(e.target.value)} data-testid="model-pp-gradient" /></label>
+            {ppPoints && <span data-testid="model-pp-points">Pp through {ppPoints.points.length} measurements from {ppPoints.file} <button type="button" className="btn small" onClick={() => setPpPoints(null)}>Use a gradient</button></span>}
+            {openFiles && !ppPoints && <button type="button" className="btn small" onClick={() => void loadPorePressurePoints()} data-testid="model-load-pp-points">Pp from measurements (CSV)…</button>}
+            <label>{ppPoints ? 'Pp gradient below the deepest point' : 'Pp gradient'} [{unitLabel(units, 'gradient')}] <input size={6} value={ppGradient} onChange={(e) => setPpGradient(e.target.value)} data-testid="model-pp-gradient" /></label>
             <label>Friction μ <input size={4} value={friction} onChange={(e) => setFriction(e.target.value)} data-testid="model-friction" /></label>
             <label>Water depth [{unitLabel(units, 'depth')}] <input size={6} value={waterDepth} placeholder={single?.waterDepth !== undefined ? toDisplay(units, 'depth', single.waterDepth).toFixed(0) : '0'} onChange={(e) => setWaterDepth(e.target.value)} /></label>
             <label>Rig floor [{unitLabel(units, 'depth')}] <input size={6} value={rigFloor} placeholder={single?.rigFloorElevation !== undefined ? toDisplay(units, 'depth', single.rigFloorElevation).toFixed(0) : '0'} onChange={(e) => setRigFloor(e.target.value)} /></label>
             <label>Table step [{unitLabel(units, 'depth')}] <input size={5} value={step} onChange={(e) => setStep(e.target.value)} data-testid="model-step" /></label>
+            {single && (single.survey && single.survey.length > 1
+              ? <span className="hint" data-testid="model-survey">MD of {single.name} from its survey ({single.survey.length} stations)</span>
+              : openFiles && saveWellSurvey && single.id !== undefined
+                ? <button type="button" className="btn small" onClick={() => void loadSurvey()} data-testid="model-load-survey">Load survey for {single.name}…</button>
+                : <span className="hint">{single.name} has no survey: no MD column</span>)}
             <label title="TVDs where the trend is split into separate lines, e.g. 1500, 2500">Trend breaks [{unitLabel(units, 'depth')}] <input size={10} value={breaks} placeholder="none" onChange={(e) => setBreaks(e.target.value)} data-testid="model-breaks" /></label>
           </div>
         </div>
@@ -236,7 +282,7 @@ export function StressModelScreen(props: StressModelScreenProps) {
             onPickClick={(id) => onOpenTest(id)} />
           <p className="hint">
             Marker shape = grade ({Object.entries(GRADE_SYMBOL).map(([g, s]) => `${g} ${s}`).join(', ')}); colour = well; arrow = FIT lower bound (never fitted);
-            star = SHmax from reopening (indicative); hollow grey = not accepted; dark ring = outlier of the trend. Click a point to open its test.
+            star = SHmax from reopening (indicative); hollow grey = not accepted; hollow blue circle = Pp measurement; dark ring = outlier of the trend. Click a point to open its test.
           </p>
           <div className="panel tight">
             <table className="grid-table" data-testid="model-tests">

@@ -3,7 +3,9 @@
  * downward; Sv, Pp, the Shmin trend with its confidence and prediction bands, the SHmax
  * frictional upper bound; each test's Shmin as a point whose shape is its grade and whose
  * colour is its well; FIT lower bounds as right-pointing arrows; reopening SHmax as stars;
- * rejected and unreviewed tests (when asked for) as hollow grey symbols. The x axis shows
+ * rejected and unreviewed tests (when asked for) as hollow grey symbols; pore-pressure
+ * measurements (when the Pp profile is built from them) as hollow blue circles with the Pp
+ * line drawn through each of them. The x axis shows
  * pressure, gradient (P / TVD) or equivalent mud weight in the chosen units.
  *
  * Colours follow a palette chosen to stay apart under common colour-vision deficiencies
@@ -12,6 +14,7 @@
  */
 import type { ChartOption, LineSeriesOption, ScatterSeriesOption } from '../../charts/echarts';
 import { breckelsVanEekelen, eatonShmin } from '../../../engine/model/correlations';
+import { porePressureAt } from '../../../engine/model/pore-pressure';
 import type { RegionalModel, StressTableRow } from '../../../engine/model/regional-model';
 import type { Grade } from '../../../engine/result';
 import { emwFromPressure } from '../../../engine/units/mudWeight';
@@ -101,6 +104,35 @@ function curve(id: string, rows: StressTableRow[], pick: (r: StressTableRow) => 
   };
 }
 
+/** Pp line: the table rows, plus every measurement depth when Pp comes from measurements (so the line runs through the points). */
+function porePressureCurve(model: RegionalModel, rows: StressTableRow[], toX: (p: number, z: number) => number | null, toDepth: (z: number) => number): LineSeriesOption {
+  const profile = model.porePressure;
+  if (profile.source !== 'measurements' || rows.length === 0) return curve('pp', rows, (r) => r.pp, CURVE_STYLE.pp, toX, toDepth);
+  const depths = [...new Set([...rows.map((r) => r.tvd), ...profile.depth.filter((z) => z > 0)])].sort((a, b) => a - b);
+  const data = depths.map((z) => {
+    const x = toX(porePressureAt(profile, z), z);
+    return [x, toDepth(z)];
+  });
+  return { ...curve('pp', [], () => null, CURVE_STYLE.pp, toX, toDepth), data: data as LineSeriesOption['data'] };
+}
+
+/** The measured pore pressures as points (the profile's nodes below its datum). */
+export function porePressurePointSeries(model: RegionalModel, view: Pick<DepthPlotView, 'mode' | 'units'>): ScatterSeriesOption | null {
+  const profile = model.porePressure;
+  if (profile.source !== 'measurements') return null;
+  const axis = axisUnits(view);
+  const data = profile.depth.map((z, i) => ({ z, p: profile.pressure[i] })).slice(1).map(({ z, p }) => {
+    const x = axis.convert(p, z);
+    const depth = fromSI(z, axis.depth, 'length');
+    return { name: `pp-${z}`, value: [x ?? NaN, depth], tip: `Pp measurement ${x === null ? '-' : x.toFixed(3)} ${axis.x} at TVD ${depth.toFixed(1)} ${axis.depth}` };
+  });
+  return {
+    id: 'pp-measurements', name: 'Pp measurements', type: 'scatter', symbol: 'circle', symbolSize: 9,
+    itemStyle: { color: 'rgba(255,255,255,0)', borderColor: CURVE_STYLE.pp.color, borderWidth: 2 },
+    data: data as ScatterSeriesOption['data'], z: 4,
+  };
+}
+
 /**
  * Builds the depth-plot option.
  *
@@ -116,7 +148,7 @@ export function depthPlotOption(model: RegionalModel, rows: StressTableRow[], vi
   const colors = wellColors(model);
   const series: (LineSeriesOption | ScatterSeriesOption)[] = [
     curve('sv', rows, (r) => r.sv, CURVE_STYLE.sv, axis.convert, toDepth),
-    curve('pp', rows, (r) => r.pp, CURVE_STYLE.pp, axis.convert, toDepth),
+    porePressureCurve(model, rows, axis.convert, toDepth),
     curve('shmin', rows, (r) => r.shmin, CURVE_STYLE.shmin, axis.convert, toDepth),
     curve('shmin-conf-low', rows, (r) => r.shminConfidenceLow, CURVE_STYLE.confidence, axis.convert, toDepth),
     curve('shmin-conf-high', rows, (r) => r.shminConfidenceHigh, { ...CURVE_STYLE.confidence }, axis.convert, toDepth),
@@ -129,6 +161,8 @@ export function depthPlotOption(model: RegionalModel, rows: StressTableRow[], vi
     series.push(curve('ref-breckels', rows, (r) => (r.tvd > 0 && r.tvd <= 15_240 ? breckelsVanEekelen(r.tvd, r.pp) : null), CURVE_STYLE.breckels, axis.convert, toDepth));
     series.push(curve('ref-eaton', rows, (r) => (r.sv > r.pp ? eatonShmin(r.sv, r.pp, EATON_REFERENCE_POISSON) : null), CURVE_STYLE.eaton, axis.convert, toDepth));
   }
+  const measured = porePressurePointSeries(model, view);
+  if (measured) series.push(measured);
   const groups = new Map<string, { name: string; symbol: string; hollow: boolean; data: { name: string; value: number[]; itemStyle: Record<string, unknown>; tip: string }[] }>();
   for (const t of model.tests) {
     if (!t.shmin || t.tvd === null || !(t.tvd > 0)) continue;

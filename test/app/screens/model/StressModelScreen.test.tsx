@@ -31,4 +31,34 @@ describe('StressModelScreen', () => {
     expect(html).toContain('No Shmin trend');
     expect(html).toContain('TVD [ft]');
   });
+
+  // One well chosen (HF-1 only); its survey is vertical to 1000 m then a 30 deg hold (truth set here).
+  const hf1 = tests.filter((t) => t.well === 'HF-1');
+  const survey = [{ md: 0, inc: 0, azi: 0 }, { md: 1000, inc: 0, azi: 0 }, { md: 1001, inc: 30, azi: 90 }, { md: 4000, inc: 30, azi: 90 }];
+
+  it('should show the MD column of a single well with a survey and the Pp measurements loaded', () => {
+    const html = renderToStaticMarkup(
+      <StressModelScreen tests={hf1} units="si" appVersion="0.1.0" onOpenTest={() => undefined} saveFile={async () => null}
+        wells={[{ id: 'w1', name: 'HF-1', fieldName: 'Harrow Flats', survey }]}
+        porePressurePoints={{ file: 'hf1-pp.csv', points: [{ tvd: 1000, pressure: 10.5e6, line: 2, well: 'HF-1' }, { tvd: 2000, pressure: 23e6, line: 3, well: 'HF-1' }] }} />,
+    );
+    expect(html).toContain('MD [m]');
+    expect(html).toContain('data-testid="model-survey"');
+    expect(html).toContain('Pp through 2 measurements from hf1-pp.csv');
+    expect(html).toContain('Pp gradient below the deepest point');
+    // Table row at 1500 m TVD: Pp on the straight line 10.5 to 23 MPa (16.75 MPa, set here).
+    expect(html).toMatch(/<tr><td>1500<\/td><td>\d+<\/td><td>16\.75<\/td>/);
+  });
+
+  it('should offer to load a survey for a single well without one, and Pp measurements, when files can be opened', () => {
+    const html = renderToStaticMarkup(
+      <StressModelScreen tests={hf1} units="si" appVersion="0.1.0" onOpenTest={() => undefined} saveFile={async () => null}
+        wells={[{ id: 'w1', name: 'HF-1', fieldName: 'Harrow Flats' }]}
+        openFiles={async () => []} saveWellSurvey={async () => undefined} />,
+    );
+    expect(html).toContain('data-testid="model-load-survey"');
+    expect(html).toContain('Load survey for HF-1');
+    expect(html).toContain('data-testid="model-load-pp-points"');
+    expect(html).not.toContain('MD [m]');
+  });
 });

@@ -74,4 +74,17 @@ describe('depthPlotOption reference curves', () => {
     expect(bve.data[0][0]).toBeCloseTo(7489.73, 1);
     expect((option.series as { id: string }[]).some((s) => s.id === 'ref-eaton')).toBe(true);
   });
+
+  it('should draw Pp measurements as points with the Pp line through each of them', async () => {
+    const { porePressureFromMeasurements } = await import('../../../../src-renderer/engine/model/pore-pressure');
+    // Truth set here: 10.5 MPa at 950 m and 23 MPa at 1950 m TVD (between table rows).
+    const measured = buildRegionalModel(tests(), { field: 'Harrow Flats', porePressure: porePressureFromMeasurements([{ tvd: 950, pressure: 10.5e6 }, { tvd: 1950, pressure: 23e6 }]) });
+    const option = depthPlotOption(measured, stressTable(measured, { from: 100, to: 2500, step: 100 }), { mode: 'pressure', units: 'si', showUnaccepted: false });
+    const series = option.series as { id: string; data: ({ value: number[] } | number[])[] }[];
+    const points = series.find((s) => s.id === 'pp-measurements')!.data.map((d) => (d as { value: number[] }).value);
+    expect(points).toEqual([[10.5, 950], [23, 1950]]);
+    const line = series.find((s) => s.id === 'pp')!.data as number[][];
+    for (const [x, y] of points) expect(line.find((d) => d[1] === y)![0]).toBeCloseTo(x, 9);
+    expect(pointsOf(option).map((p) => p.id)).not.toContain('pp-950');
+  });
 });
