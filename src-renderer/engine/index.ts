@@ -23,7 +23,7 @@ export { downholePressure, fluidColumnPressure, type DownholePressure } from './
 export { analyseLoading, pickAt, LOADING_METHODS, DEFAULT_DEPARTURE_SD, type LoadingFeatures, type LoadingOptions } from './analysis/loading-picks';
 export { assembleCyclePicks, primaryClosure, CLOSURE_PREFERENCE, type CyclePickInput } from './analysis/cycle-picks';
 export { applyManualPicks } from './analysis/manual-picks';
-export { medianOf, quantileOf, noiseStandardDeviation, recordingStep } from './analysis/robust-statistics';
+export { medianOf, quantileOf, noiseStandardDeviation, recordingStep, quantisationStep } from './analysis/robust-statistics';
 export { fitLine, fitLineThroughOrigin, fitLinearModel, RunningLineFit, type LineFitWithErrors, type LinearModelFit } from './analysis/least-squares';
 export { gFunction, gFunctionSeries, type GFunctionAlpha } from './analysis/gfunction';
 export { isipPick, closurePick, closureCandidates, closureSpread, gFunctionDiagnostic, CLOSURE_METHODS, type ClosureMethod, type ShutInOptions, type GFunctionDiagnostic } from './analysis/shut-in';

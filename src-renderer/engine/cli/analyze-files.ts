@@ -70,9 +70,18 @@ export async function analyzeFilesForCli(paths: readonly string[], args: CliArgu
     } catch (e) {
       error = asEngineError(e, file);
     }
+    let json: Record<string, unknown>;
+    try {
+      json = fileResultJson(file, analysis, record, error);
+    } catch (e) {
+      // A result the contract cannot express is this file's failure, not the whole run's.
+      error = asEngineError(e, file);
+      analysis = null;
+      json = fileResultJson(file, null, null, error);
+    }
     if (error) io.stderr?.write(`[${i + 1}/${paths.length}] failed: ${error.message}\n`);
     else io.stderr?.write(`[${i + 1}/${paths.length}] ${file}: ${analysis?.type.toUpperCase()}, grade ${analysis?.quality.grade}\n`);
-    const outcome: CliFileOutcome = { path, file, record: error ? null : record, analysis, error, json: fileResultJson(file, analysis, record, error) };
+    const outcome: CliFileOutcome = { path, file, record: error ? null : record, analysis, error, json };
     io.onOutcome?.(outcome);
     if (io.release) {
       outcome.record = null;

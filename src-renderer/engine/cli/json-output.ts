@@ -2,10 +2,18 @@
  * The `analyze --json` document of contracts/cli.md: the engine's SI result converted to
  * the contract's display units (pressures downhole in MPa, times in s, depths in m,
  * slopes in MPa/m3, rates in m3/min). Fields may be added, never renamed.
+ *
+ * Where the engine says more than the contract's vocabulary, the contract field keeps to
+ * its listed words and an added field carries the rest: `stress.shmin.kind` is `estimate`
+ * or `lower-bound` with `bound` 'upper' | 'lower' | null beside it (an ISIP or propagation
+ * Shmin is an `estimate` with `bound: 'upper'`); `stress.shmin.from` is one of closure, isip,
+ * leakOff, fitMaximum, extension, with `fromPick` naming the actual `picks` key (a
+ * propagation pick reads `from: 'extension'`, `fromPick: 'propagation'`). A pick the gauge
+ * clipped carries `bound: 'lower'`; each criterion carries the `unit` of its value and limit.
  */
-import type { EngineError } from '../errors';
+import { EngineError } from '../errors';
 import type { TestRecord } from '../record';
-import { PICK_KINDS, type AnalysisResult, type CycleAnalysis, type Pick } from '../result';
+import { PICK_KINDS, type AnalysisResult, type CycleAnalysis, type Pick, type PickKind, type ShminKind } from '../result';
 import { SAFETY_CAUTION } from './caution';
 
 /** The program's name in the `tool` block. */
@@ -36,6 +44,8 @@ export function pickJson(pick: Pick): Record<string, unknown> {
     sampleIndex: pick.sampleIndex,
   };
   if (pick.rate !== undefined) out.rate = quantity(pick.rate * 60, 'm3/min');
+  // Added field: the gauge clipped at full scale at this pick, so the value is only a lower bound.
+  if (pick.bound) out.bound = pick.bound;
   if (pick.manual) {
     out.manual = true;
     out.reason = pick.reason ?? '';
@@ -86,13 +96,56 @@ export function cycleJson(c: CycleAnalysis, time: Float64Array): Record<string, 
   return out;
 }
 
+/** The contract's words for what a Shmin value is (`stress.shmin.kind`). */
+export type ContractShminKind = 'estimate' | 'lower-bound';
+/** The contract's words for the pick a Shmin value comes from (`stress.shmin.from`). */
+export type ContractShminSource = 'closure' | 'isip' | 'leakOff' | 'fitMaximum' | 'extension';
+
+/**
+ * The engine's Shmin meaning in the contract's vocabulary, which has only `estimate` and
+ * `lower-bound`. The engine also reports `upper-bound` (Shmin from the ISIP or the
+ * propagation pressure: a close upper bound, METHODS.md after White et al. 2002); the
+ * contract's `kind` then reads `estimate` and the added field `bound` keeps the side
+ * ('upper'; 'lower' for a lower bound; null for an estimate without a side).
+ *
+ * @param kind the engine's ShminKind. @returns {kind, bound} for the JSON. @throws nothing.
+ * @example contractShminKind('upper-bound') // {kind: 'estimate', bound: 'upper'}
+ */
+export function contractShminKind(kind: ShminKind): { kind: ContractShminKind; bound: 'upper' | 'lower' | null } {
+  if (kind === 'upper-bound') return { kind: 'estimate', bound: 'upper' };
+  if (kind === 'lower-bound') return { kind: 'lower-bound', bound: 'lower' };
+  return { kind: 'estimate', bound: null };
+}
+
+/**
+ * The pick a Shmin comes from in the contract's vocabulary. The propagation pressure (the
+ * near-constant pressure while a fracture grows) is the trade's fracture extension
+ * pressure, so `from` reads `extension`; the added field `fromPick` always names the
+ * `picks` key of the cycle it was taken from ('propagation' in that case).
+ *
+ * @param from the engine's pick kind. @returns {from, fromPick}. @throws nothing.
+ * @example contractShminSource('propagation') // {from: 'extension', fromPick: 'propagation'}
+ */
+export function contractShminSource(from: PickKind): { from: ContractShminSource; fromPick: PickKind } {
+  switch (from) {
+    case 'closure': case 'isip': case 'leakOff': case 'fitMaximum': case 'extension':
+      return { from, fromPick: from };
+    case 'propagation':
+      return { from: 'extension', fromPick: from };
+    default:
+      // Breakdown and reopening are not Shmin measurements (SHMIN_HIERARCHY never uses them).
+      throw new EngineError('internal-error', `Shmin cannot come from a ${from} pick`, {}, 'closure, isip, propagation, extension, leakOff or fitMaximum');
+  }
+}
+
 /** The JSON of the stress estimates. */
 export function stressJson(stress: AnalysisResult['stress']): Record<string, unknown> {
   const sh = stress.shmax;
   const d = sh?.detectability ?? null;
+  const shmin = stress.shmin;
   return {
-    shmin: stress.shmin
-      ? { value: rounded(stress.shmin.value / MPA), unit: 'MPa', kind: stress.shmin.kind, from: stress.shmin.from, cycle: stress.shmin.cycle }
+    shmin: shmin
+      ? { value: rounded(shmin.value / MPA), unit: 'MPa', ...contractShminKind(shmin.kind), ...contractShminSource(shmin.from), cycle: shmin.cycle }
       : null,
     shmax: sh
       ? {
@@ -151,6 +204,8 @@ export function fileResultJson(file: string, analysis: AnalysisResult | null, re
       grade: analysis.quality.grade,
       criteria: analysis.quality.criteria.map((c) => ({
         id: c.id, pass: c.pass, value: rounded(c.value), limit: rounded(c.limit), message: c.message, severity: c.severity,
+        // Added field: the unit of value and limit (SI, 'fraction', 'ratio' or 'r2'); null when not known.
+        unit: c.unit ?? null,
       })),
       explanation: analysis.quality.explanation,
     },
