@@ -400,9 +400,12 @@ export class TeamFolder {
   }
 }
 
-/** Append bytes in one write, then fsync, so a crash leaves at most a torn last line. */
-async function appendDurably(path: string, bytes: Uint8Array): Promise<void> {
-  const handle = await open(path, 'a');
+/**
+ * Writes bytes in one go, then fsyncs, so a crash leaves at most a torn last line:
+ * flag 'a' appends (journals), 'w' replaces (temporary raw files before their rename).
+ */
+async function writeDurably(path: string, bytes: Uint8Array, flag: 'a' | 'w' = 'w'): Promise<void> {
+  const handle = await open(path, flag);
   try {
     let offset = 0;
     while (offset < bytes.length) {
@@ -415,18 +418,9 @@ async function appendDurably(path: string, bytes: Uint8Array): Promise<void> {
   }
 }
 
-async function writeDurably(path: string, bytes: Uint8Array): Promise<void> {
-  const handle = await open(path, 'w');
-  try {
-    let offset = 0;
-    while (offset < bytes.length) {
-      const { bytesWritten } = await handle.write(bytes, offset, bytes.length - offset);
-      offset += bytesWritten;
-    }
-    await handle.sync();
-  } finally {
-    await handle.close();
-  }
+/** Appends bytes durably (see {@link writeDurably}). */
+function appendDurably(path: string, bytes: Uint8Array): Promise<void> {
+  return writeDurably(path, bytes, 'a');
 }
 
 async function readRange(path: string, start: number, end: number): Promise<Buffer> {

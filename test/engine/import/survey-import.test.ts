@@ -1,8 +1,8 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { minimumCurvature, tvdAtMd } from '../../../src-renderer/engine/analysis/survey';
-import { EngineError } from '../../../src-renderer/engine/errors';
 import { isSurveyFile, parseSurveyFile } from '../../../src-renderer/engine/import/survey-import';
+import { thrown } from '../../support/errors';
 
 const DIR = '/work/shared/reference/directional';
 const encode = (text: string) => new TextEncoder().encode(text);
@@ -19,16 +19,6 @@ function groupBy<T>(rows: T[], key: (r: T) => string): Map<string, T[]> {
   const m = new Map<string, T[]>();
   for (const r of rows) m.set(key(r), [...(m.get(key(r)) ?? []), r]);
   return m;
-}
-
-function thrown(f: () => unknown): EngineError {
-  try {
-    f();
-  } catch (e) {
-    if (e instanceof EngineError) return e;
-    throw e;
-  }
-  throw new Error('expected an EngineError');
 }
 
 describe('survey import', () => {

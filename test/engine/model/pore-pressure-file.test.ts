@@ -1,23 +1,13 @@
 import { describe, expect, it } from 'vitest';
-import { EngineError } from '../../../src-renderer/engine/errors';
 import { parsePorePressureFile, pointsOfWell } from '../../../src-renderer/engine/model/pore-pressure-file';
 import { porePressureAt, porePressureFromMeasurements } from '../../../src-renderer/engine/model/pore-pressure';
+import { thrown } from '../../support/errors';
 
 const encode = (text: string) => new TextEncoder().encode(text);
 /** NIST SP 811 appendix B: foot = 0.3048 m, psi = 6894.757293168 Pa; standard gravity 9.80665 m/s2. */
 const FOOT = 0.3048;
 const PSI = 6894.757293168361;
 const G = 9.80665;
-
-function thrown(f: () => unknown): EngineError {
-  try {
-    f();
-  } catch (e) {
-    if (e instanceof EngineError) return e;
-    throw e;
-  }
-  throw new Error('expected an EngineError');
-}
 
 describe('pore-pressure file', () => {
   it('should read feet and psi under a metadata block naming the well, with decimal commas', () => {

@@ -6,6 +6,7 @@ import {
   verticalStressFromDensityLog,
   verticalStressFromGradient,
 } from '../../../src-renderer/engine/model/vertical-stress';
+import { thrown } from '../../support/errors';
 
 // g_n = 9.80665 m/s2 exactly (NIST SP 811, 2008, Appendix B.8).
 const G = 9.80665;
@@ -19,16 +20,6 @@ function log(depth: number[], rho: number[], unit = 'g/cm3', extra: Partial<Dept
     nullValue: -999.25,
     ...extra,
   };
-}
-
-function thrown(f: () => unknown): EngineError {
-  try {
-    f();
-  } catch (e) {
-    if (e instanceof EngineError) return e;
-    throw e;
-  }
-  throw new Error('expected an EngineError');
 }
 
 describe('vertical-stress', () => {
