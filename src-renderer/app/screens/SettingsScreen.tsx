@@ -1,11 +1,15 @@
-import { useEffect, useMemo, useState } from 'react';
+import { useCallback, useEffect, useMemo, useState } from 'react';
 import type { UserRow } from '../../archive/api';
+import { isArchiveError } from '../../archive/errors';
 import { DEFAULT_LIMITS } from '../../engine/quality/limits';
 import { useApp } from '../context';
-import { ReasonDialog } from '../components/Dialog';
-import { criterionName, criterionNumber } from './test/QualityPanel';
+import { Dialog, ReasonDialog } from '../components/Dialog';
+import { formatLimit, formatLimitNumber, limitUnitLabel } from '../format/limitDisplay';
+import { limitDraftChanges } from '../state/limitDraft';
+import { criterionName } from './test/QualityPanel';
 
-const UNIT_WORDS: Record<string, string> = { '1': '', s: 's', 'Pa/s': 'Pa/s', Pa: 'Pa' };
+/** Extension of the files "Save a backup…" writes (and "Restore a backup…" opens). */
+const BACKUP_EXTENSION = '.slbackup';
 
 export function SettingsScreen() {
   const { archive, bridge, user, units, setUnits, notify } = useApp();
@@ -16,21 +20,49 @@ export function SettingsScreen() {
   const [asking, setAsking] = useState(false);
   const [regrade, setRegrade] = useState<{ done: number; total: number } | null>(null);
   const [problem, setProblem] = useState<string | null>(null);
+  const [restoreFile, setRestoreFile] = useState<{ name: string; bytes: Uint8Array } | null>(null);
+  const [restoring, setRestoring] = useState(false);
+  const [backupStatus, setBackupStatus] = useState<{ ok: boolean; text: string } | null>(null);
 
-  useEffect(() => {
-    void archive.listUsers().then(setUsers);
-    void archive.getSettings().then((s) => setSaved(s.limits));
+  const reload = useCallback(async () => {
+    const [userRows, settings] = await Promise.all([archive.listUsers(), archive.getSettings()]);
+    setUsers(userRows);
+    setSaved(settings.limits);
+    return settings;
   }, [archive]);
 
-  const changed = useMemo(() => {
-    const out: Record<string, number> = {};
-    for (const [k, text] of Object.entries(draft)) {
-      const n = Number(text.replace(',', '.'));
-      if (text.trim() !== '' && Number.isFinite(n)) out[k] = n;
+  useEffect(() => { void reload(); }, [reload]);
+
+  // A typed decline rate is in the units shown when it was typed: start again when they change.
+  useEffect(() => { setDraft({}); }, [units]);
+
+  const { changes: changed, errors } = useMemo(() => limitDraftChanges(draft, saved, units), [draft, saved, units]);
+  const invalid = Object.keys(errors);
+
+  const restore = async () => {
+    if (!restoreFile) return;
+    setRestoring(true);
+    setBackupStatus(null);
+    try {
+      await archive.restoreBackup(restoreFile.bytes);
+      const settings = await reload();
+      setDraft({});
+      if (settings.unitSystem !== units) setUnits(settings.unitSystem);
+      const { total } = await archive.countByState();
+      const text = `Backup ${restoreFile.name} restored: the archive now holds ${total} test${total === 1 ? '' : 's'}.`;
+      setBackupStatus({ ok: true, text });
+      notify(text);
+    } catch (e) {
+      const message = e instanceof Error ? e.message : String(e);
+      const refused = isArchiveError(e) && (e.code === 'bad-backup' || e.code === 'backup-version');
+      setBackupStatus({ ok: false, text: refused
+        ? `The backup ${restoreFile.name} was refused: ${message} Nothing in the archive was changed.`
+        : `The restore of ${restoreFile.name} did not finish: ${message}` });
+    } finally {
+      setRestoring(false);
+      setRestoreFile(null);
     }
-    return out;
-  }, [draft]);
-  const invalid = Object.entries(draft).filter(([, t]) => t.trim() !== '' && !Number.isFinite(Number(t.replace(',', '.'))));
+  };
 
   return (
     <div className="page" data-testid="screen-settings">
@@ -62,13 +94,21 @@ export function SettingsScreen() {
           <tbody>
             {DEFAULT_LIMITS.map((l) => {
               const [criterion, name] = l.key.split('.');
-              const value = draft[l.key] ?? (saved[l.key] !== undefined ? String(saved[l.key]) : '');
+              const value = draft[l.key] ?? (saved[l.key] !== undefined ? formatLimitNumber(l.display, units, saved[l.key]) : '');
+              const unit = limitUnitLabel(l.display, units);
+              const error = errors[l.key];
               return (
                 <tr key={l.key}>
                   <td><b>{criterionName(criterion)}</b><div className="hint mono">{name}</div></td>
-                  <td className="num">{criterionNumber(l.value)} <span className="hint">{UNIT_WORDS[l.unit] ?? l.unit}</span></td>
-                  <td className="num"><input type="text" size={8} value={value} placeholder={criterionNumber(l.value)} aria-label={`Project value of ${l.key}`}
-                    data-testid={`limit-${l.key}`} onChange={(e) => setDraft((d) => ({ ...d, [l.key]: e.target.value }))} /></td>
+                  <td className="num" data-testid={`limit-default-${l.key}`}>{formatLimit(l.display, units, l.value)}</td>
+                  <td className="num" style={{ whiteSpace: 'nowrap' }}>
+                    <input type="text" size={8} value={value} placeholder={formatLimitNumber(l.display, units, l.value)}
+                      aria-label={`Project value of ${l.key}${unit ? ` in ${unit}` : ''}`} aria-invalid={error ? true : undefined}
+                      aria-describedby={error ? `limit-error-${l.key}` : undefined}
+                      data-testid={`limit-${l.key}`} onChange={(e) => setDraft((d) => ({ ...d, [l.key]: e.target.value }))} />
+                    <span className="hint" style={{ display: 'inline-block', minWidth: '4.5em', textAlign: 'left', paddingLeft: 4 }}>{unit}</span>
+                    {error && <div className="error-text" style={{ whiteSpace: 'normal' }} id={`limit-error-${l.key}`} data-testid={`limit-error-${l.key}`}>{error}</div>}
+                  </td>
                   <td className="hint">{l.rationale}</td>
                 </tr>
               );
@@ -92,13 +132,40 @@ export function SettingsScreen() {
 
       <section className="panel stack" aria-labelledby="backup-title">
         <h2 id="backup-title">Backup</h2>
-        <p className="hint">The whole archive as one file: tests, raw files, picks and the full review log.</p>
-        <div className="row"><button type="button" className="btn" onClick={async () => {
-          const bytes = await archive.exportBackup();
-          const name = await bridge.saveFile(`stress-ledger-backup-${new Date().toISOString().slice(0, 10)}.slbackup`, bytes, 'application/octet-stream');
-          if (name) notify(`Backup saved as ${name}.`);
-        }}>Save a backup…</button></div>
+        <p className="hint">The whole archive as one file: tests, raw files, picks and the full review log. Restoring a backup replaces the whole archive with it.</p>
+        <div className="row">
+          <button type="button" className="btn" data-testid="save-backup" onClick={async () => {
+            const bytes = await archive.exportBackup();
+            const name = await bridge.saveFile(`stress-ledger-backup-${new Date().toISOString().slice(0, 10)}${BACKUP_EXTENSION}`, bytes, 'application/octet-stream');
+            if (name) notify(`Backup saved as ${name}.`);
+          }}>Save a backup…</button>
+          <button type="button" className="btn" data-testid="restore-backup" disabled={restoring} onClick={async () => {
+            setBackupStatus(null);
+            try {
+              const [file] = await bridge.openFiles({ accept: [BACKUP_EXTENSION], multiple: false });
+              if (file) setRestoreFile({ name: file.name, bytes: file.bytes });
+            } catch (e) {
+              setBackupStatus({ ok: false, text: `The file could not be read: ${e instanceof Error ? e.message : String(e)}` });
+            }
+          }}>Restore a backup…</button>
+        </div>
+        {backupStatus && (backupStatus.ok
+          ? <p role="status" data-testid="backup-status">{backupStatus.text}</p>
+          : <p className="error-text" role="alert" data-testid="backup-error">{backupStatus.text}</p>)}
       </section>
+
+      {restoreFile && (
+        <Dialog title="Replace the archive with this backup?" testId="restore-dialog" onClose={() => { if (!restoring) setRestoreFile(null); }}>
+          <p>The current archive will be replaced by the backup <b>{restoreFile.name}</b>: every test, raw file, pick, user,
+            project setting and review-log entry now in this archive is removed and the backup&apos;s take their place.</p>
+          <p className="hint">Save a backup of the current archive first if you may need it again. A damaged file is refused and changes nothing.</p>
+          <div className="actions">
+            <button className="btn" type="button" disabled={restoring} onClick={() => setRestoreFile(null)}>Cancel</button>
+            <button className="btn danger" type="button" disabled={restoring} data-testid="restore-confirm" onClick={() => { void restore(); }}>
+              {restoring ? 'Restoring…' : 'Replace the archive'}</button>
+          </div>
+        </Dialog>
+      )}
 
       {asking && (
         <ReasonDialog title="Change the project's quality limits" confirmLabel="Save limits"

@@ -9,6 +9,15 @@
  */
 import { EngineError } from '../errors';
 
+/**
+ * How a limit is shown and typed on screens (the value itself stays SI):
+ * 'percent' a fraction shown in % (0.1 -> 10 %), 'r2' a coefficient of determination
+ * shown as a plain number, 'ratio' a dimensionless ratio (x), 'count' a whole number,
+ * 'duration-min' seconds shown in minutes, 'duration-s' seconds shown in seconds,
+ * 'pressure-rate' Pa/s shown as a pressure per minute (kPa/min or psi/min).
+ */
+export type LimitDisplay = 'percent' | 'r2' | 'ratio' | 'count' | 'duration-min' | 'duration-s' | 'pressure-rate';
+
 export interface QualityLimit {
   /** Stable key: "<criterion id>.<name>". */
   key: string;
@@ -17,71 +26,73 @@ export interface QualityLimit {
   unit: string;
   rationale: string;
   source: string;
+  /** How screens show and take this value (see LimitDisplay). */
+  display: LimitDisplay;
 }
 
 export const DEFAULT_LIMITS: readonly QualityLimit[] = [
   {
-    key: 'loading-linearity.minR2', value: 0.995, unit: '1',
+    key: 'loading-linearity.minR2', value: 0.995, unit: '1', display: 'r2',
     rationale: 'The loading part of pressure against volume should be a straight line; a lower R2 means air, a toe, unsteady rate or early leak-off.',
     source: 'contracts/cli.md example limit; straight loading line is good practice (METHODS.md, White et al. 2002).',
   },
   {
-    key: 'loading-stiffness.minRatio', value: 0.5, unit: '1',
+    key: 'loading-stiffness.minRatio', value: 0.5, unit: '1', display: 'ratio',
     rationale: 'Field loading slopes are softer than 1/(c V) (air, casing expansion, filtration, temperature); below half the expected slope the line holds air or the volume is wrong.',
     source: 'chosen; field slopes softer than computed: Altun, Langlinais & Bourgoyne (2001), SPE D&C 16(2).',
   },
   {
-    key: 'loading-stiffness.maxRatio', value: 1.5, unit: '1',
+    key: 'loading-stiffness.maxRatio', value: 1.5, unit: '1', display: 'ratio',
     rationale: 'A slope much stiffer than 1/(c V) is not physical: the stated system volume or compressibility is too large, or the rate is wrong.',
     source: 'chosen; allows for the usual uncertainty of stated volume and compressibility (Bourgoyne et al. 1986 ch. 3, from memory).',
   },
   {
-    key: 'rate-stability.maxCv', value: 0.10, unit: '1',
+    key: 'rate-stability.maxCv', value: 0.10, unit: '1', display: 'percent',
     rationale: 'Coefficient of variation (SD / mean) of the pump rate while pumping (inside each step for a step-rate test); an unsteady rate bends the loading line.',
     source: 'common practice: constant low rate, about 0.25-0.5 bbl/min (METHODS.md good practice).',
   },
   {
-    key: 'shut-in-stability.minDuration', value: 600, unit: 's',
+    key: 'shut-in-stability.minDuration', value: 600, unit: 's', display: 'duration-min',
     rationale: 'The shut-in must be recorded long enough to pick ISIP and closure: at least 10 minutes.',
     source: 'common practice: shut-in recorded until the pressure stabilises (METHODS.md good practice).',
   },
   {
-    key: 'shut-in-stability.maxEndDeclineRate', value: 5e3 / 60, unit: 'Pa/s',
+    key: 'shut-in-stability.maxEndDeclineRate', value: 5e3 / 60, unit: 'Pa/s', display: 'pressure-rate',
     rationale: 'Pressure decline over the last 2 minutes of the shut-in (least-squares slope) must have slowed below 5 kPa/min (about 0.7 psi/min); a decline that keeps going points to a leak (valve, casing, surface lines) or a shut-in stopped too early.',
     source: 'chosen; stabilised shut-in is common practice (METHODS.md good practice).',
   },
   {
-    key: 'shut-in-stability.endWindow', value: 120, unit: 's',
+    key: 'shut-in-stability.endWindow', value: 120, unit: 's', display: 'duration-min',
     rationale: 'Length of the final window over which the end decline rate is measured.',
     source: 'chosen.',
   },
   {
-    key: 'second-cycle.maxRepeatDifference', value: 0.05, unit: '1',
+    key: 'second-cycle.maxRepeatDifference', value: 0.05, unit: '1', display: 'percent',
     rationale: 'ISIP and closure of the last two cycles must repeat within 5 % of their mean; reopening must be below the first-cycle breakdown.',
     source: 'common practice: two or more cycles with ISIP and closure repeating and reopening below breakdown (METHODS.md good practice; Zoback et al. 2003).',
   },
   {
-    key: 'sampling.maxInterval', value: 1, unit: 's',
+    key: 'sampling.maxInterval', value: 1, unit: 's', display: 'duration-s',
     rationale: 'Median sample interval: a second or faster, so that leak-off, breakdown and ISIP are resolved.',
     source: 'common practice: sampling of a second or faster (METHODS.md good practice).',
   },
   {
-    key: 'sampling.minLoadingSamples', value: 20, unit: '1',
+    key: 'sampling.minLoadingSamples', value: 20, unit: '1', display: 'count',
     rationale: 'Samples in the fitted linear loading part of the first cycle; fewer cannot establish a line or its departure.',
     source: 'chosen.',
   },
   {
-    key: 'gauge-range.maxFraction', value: 0.95, unit: '1',
+    key: 'gauge-range.maxFraction', value: 0.95, unit: '1', display: 'percent',
     rationale: 'Highest gauge reading over the gauge full-scale range; near full scale the gauge may saturate and its accuracy is poorest.',
     source: 'common practice: a gauge whose range is not reached (METHODS.md good practice).',
   },
   {
-    key: 'gauge-range.maxFlatTopSamples', value: 5, unit: '1',
+    key: 'gauge-range.maxFlatTopSamples', value: 5, unit: '1', display: 'count',
     rationale: 'A run of this many or more consecutive identical readings at the record maximum, while pumping, is taken as clipping.',
     source: 'chosen.',
   },
   {
-    key: 'pick-agreement.maxSpreadFraction', value: 0.05, unit: '1',
+    key: 'pick-agreement.maxSpreadFraction', value: 0.05, unit: '1', display: 'percent',
     rationale: 'Spread (max - min) of the closure picks by different methods, over their mean; their agreement is itself a quality signal.',
     source: 'ISRM Suggested Methods Part 3, Haimson & Cornet (2003), IJRMMS 40:1011-1020 (use several methods); 5 % chosen.',
   },
