@@ -42,6 +42,8 @@ export async function openTest(page: Page, well: string, type?: 'fit' | 'lot' | 
   await expect(page.getByTestId('screen-test')).toBeVisible();
   await expect(page.getByTestId('test-title')).toContainText(well);
   await expect(page.getByTestId('chart-time').locator('canvas').first()).toBeVisible();
+  // The record is drawn first; the analysis (picks, criteria) follows from the worker.
+  await expect(page.getByTestId('screen-test')).toHaveAttribute('data-analysed', 'true');
 }
 
 /** Opens one of the side tabs of the test screen. */

@@ -56,6 +56,27 @@ export interface TestDetail {
   log: ArchiveEvent[];
 }
 
+/**
+ * A test as read from the archive, before its analysis (getTestHeader): enough to draw the
+ * pressure-time chart at once. The analysis follows with getTestDetail.
+ */
+export interface TestHeader {
+  /** The stored summary (grade and Shmin as of the last analysis). */
+  summary: TestSummary;
+  metadata: TestMetadata;
+  samples: StoredSamples;
+  /** Manual picks in force when read. */
+  manualPicks: TestDetail['manualPicks'];
+  /**
+   * Pressure at the tested depth, Pa, one per sample: the gauge readings plus the constant
+   * hydrostatic correction (engine/analysis/downhole.ts); null when the metadata cannot give
+   * it (the analysis then reports why).
+   */
+  downholePressure: Float64Array | null;
+  /** The correction added to each gauge reading, Pa (0 for a downhole gauge); null with downholePressure. */
+  hydrostaticCorrection: number | null;
+}
+
 export interface ImportOutcome {
   fileName: string;
   status: 'imported' | 'duplicate' | 'failed';
@@ -150,6 +171,16 @@ export interface ArchiveService {
   countByState(query?: ArchiveQuery): Promise<StateCounts>;
   /** A test with samples, re-analysed with its manual picks and the project limits. */
   getTest(testId: string): Promise<TestDetail>;
+  /**
+   * A test with samples and downhole pressure but no analysis, read without running the
+   * engine (for drawing the record at once). Optional so other implementations stay valid.
+   */
+  getTestHeader?(testId: string): Promise<TestHeader>;
+  /**
+   * The full detail of a test read with getTestHeader: its samples (the header's own arrays)
+   * analysed with the manual picks and project limits in force now, as getTest gives.
+   */
+  getTestDetail?(header: TestHeader): Promise<TestDetail>;
   listFields(): Promise<FieldRow[]>;
   listWells(fieldId?: string): Promise<WellRow[]>;
   /** Replace a well's directional survey (MD m, inclination and azimuth in degrees). */

@@ -1,4 +1,4 @@
-import type { TestDetail } from './api';
+import type { StoredSamples, TestDetail, TestHeader } from './api';
 import { announceChange, nowIso, type ArchiveContext } from './archive-context';
 import { eventsForTest } from './archive-events';
 import { rememberRows } from './archive-list';
@@ -9,6 +9,8 @@ import { canonicalJson } from './journal/canonical';
 import { toSummary } from './query';
 import type { ManualPick } from './team-rebuild';
 import type { AnalysisOptions } from '../engine/analysis-options';
+import { downholePressure } from '../engine/analysis/downhole';
+import { isEngineError } from '../engine/errors';
 import type { TestRecord } from '../engine/record';
 import type { AnalysisResult } from '../engine/result';
 
@@ -82,7 +84,14 @@ export async function getTest(context: ArchiveContext, testId: string): Promise<
     requireTest(context, testId), db.samples.get(testId), manualPicksInForce(context, testId), getSettings(context),
   ]);
   if (!samples) throw new ArchiveError('not-found', `The samples of test ${testId} are missing.`);
-  const limits = settings.limits;
+  return analysedDetail(context, test, { time: samples.time, pressure: samples.pressure, rate: samples.rate, volume: samples.volume }, manualPicks, settings.limits);
+}
+
+/** The stored test and its samples analysed; a changed grade or Shmin is written back to the summary. */
+async function analysedDetail(context: ArchiveContext, test: StoredTest, samples: StoredSamples, manualPicks: ManualPick[],
+  limits: Record<string, number>): Promise<TestDetail> {
+  const { db } = context;
+  const testId = test.id;
   const log = eventsForTest(context, testId);
   log.catch(() => { /* reported where awaited below */ });
   const analysis = await context.engine.analyse(recordOf(test, samples), analysisOptions(test, limits, manualPicks));
@@ -98,11 +107,52 @@ export async function getTest(context: ArchiveContext, testId: string): Promise<
   return {
     summary: toSummary(updated),
     metadata: test.metadata,
-    samples: { time: samples.time, pressure: samples.pressure, rate: samples.rate, volume: samples.volume },
+    samples,
     analysis,
     manualPicks,
     log: await log,
   };
+}
+
+/**
+ * A stored test read without analysing it: summary, metadata, samples, the manual picks in
+ * force, and the downhole pressure (gauge readings plus the constant hydrostatic correction
+ * of engine/analysis/downhole.ts; null when the metadata cannot give it).
+ * @throws ArchiveError 'not-found' for an unknown test or missing samples.
+ */
+export async function getTestHeader(context: ArchiveContext, testId: string): Promise<TestHeader> {
+  const [test, samples, manualPicks] = await Promise.all([
+    requireTest(context, testId), context.db.samples.get(testId), manualPicksInForce(context, testId),
+  ]);
+  if (!samples) throw new ArchiveError('not-found', `The samples of test ${testId} are missing.`);
+  let downhole: { pressure: Float64Array; correction: number } | null = null;
+  try {
+    downhole = downholePressure(samples.pressure, test.metadata, test.source.fileName);
+  } catch (e) {
+    if (!isEngineError(e)) throw e;
+    // No downhole series without TVD and mud density; the analysis names what is missing.
+  }
+  return {
+    summary: toSummary(test),
+    metadata: test.metadata,
+    samples: { time: samples.time, pressure: samples.pressure, rate: samples.rate, volume: samples.volume },
+    manualPicks,
+    downholePressure: downhole ? downhole.pressure : null,
+    hydrostaticCorrection: downhole ? downhole.correction : null,
+  };
+}
+
+/**
+ * The detail of a test read with getTestHeader: the header's samples (not read again)
+ * analysed with the manual picks and project limits in force now, exactly as getTest.
+ * @throws ArchiveError 'not-found' when the test is no longer in the archive.
+ */
+export async function getTestDetail(context: ArchiveContext, header: TestHeader): Promise<TestDetail> {
+  const testId = header.summary.id;
+  const [test, manualPicks, settings] = await Promise.all([
+    requireTest(context, testId), manualPicksInForce(context, testId), getSettings(context),
+  ]);
+  return analysedDetail(context, test, header.samples, manualPicks, settings.limits);
 }
 
 /** Re-analyse every test with the current limits; the number of summaries whose grade changed. */

@@ -1,6 +1,6 @@
 import type {
   ApplyOutcome, ArchiveQuery, ArchiveSettings, FieldRow, ImportFileInput, ImportOptions, ImportOutcome,
-  MissingRawFile, SavedMapping, StateCounts, TeamArchiveService, TeamConflict, TestDetail, TestSummary, UserRow, WellRow,
+  MissingRawFile, SavedMapping, StateCounts, TeamArchiveService, TeamConflict, TestDetail, TestHeader, TestSummary, UserRow, WellRow,
 } from './api';
 import type { ArchiveEvent } from './events';
 import type { Pick as EnginePick, PickKind } from '../engine/result';
@@ -13,7 +13,7 @@ import type { SyncStatus } from './journal/sync-status';
 import { ensureDevice, notifyListeners, type ArchiveContext, type FixedAuthoring } from './archive-context';
 import { eventsForTest, listEvents, withFixedAuthoring } from './archive-events';
 import { countByState, forgetList, listTests } from './archive-list';
-import { getTest, regradeAll } from './archive-analysis';
+import { getTest, getTestDetail, getTestHeader, regradeAll } from './archive-analysis';
 import { listFields, listWells, setWellSurvey } from './archive-wells';
 import { importFiles } from './archive-import';
 import { comment, movePick, reject, reopen, requestReview, resetPicks, signOff } from './archive-review';
@@ -105,6 +105,8 @@ export class Archive implements TeamArchiveService {
   listFields(): Promise<FieldRow[]> { return listFields(this.context); }
   listWells(fieldId?: string): Promise<WellRow[]> { return listWells(this.context, fieldId); }
   getTest(testId: string): Promise<TestDetail> { return getTest(this.context, testId); }
+  getTestHeader(testId: string): Promise<TestHeader> { return getTestHeader(this.context, testId); }
+  getTestDetail(header: TestHeader): Promise<TestDetail> { return getTestDetail(this.context, header); }
 
   // ----- import and wells --------------------------------------------------------------
 

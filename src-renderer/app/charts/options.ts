@@ -149,6 +149,17 @@ export interface TimeChartInput {
   showGauge: boolean;
 }
 
+/**
+ * The pick markers of the pressure-time chart alone (scatter series 'pick-<kind>'), as
+ * timeChartOption draws them: for adding the picks to a chart built without them, so the
+ * decimated record is not thinned again when the analysis arrives.
+ */
+export function timeChartPickSeries(picks: PlacedPick[], units: UnitSystem): ScatterSeriesOption[] {
+  const sx = displayScale(units, 'time');
+  const sp = displayScale(units, 'pressure');
+  return pickSeries(picks.map((p) => ({ key: pickKey(p.cycle, p.kind), kind: p.kind, x: sx(p.pick.time), y: sp(p.pick.pressure) })));
+}
+
 /** Pressure (left axis) and pump rate (right axis) against time, with every pick. */
 export function timeChartOption(input: TimeChartInput): ChartOption {
   const { time, units } = input;

@@ -1,11 +1,13 @@
 import { useEffect, useMemo, useState } from 'react';
-import type { TestDetail } from '../../../archive/api';
+import type { StoredSamples } from '../../../archive/api';
+import type { TestType } from '../../../engine/record';
 import type { AnalysisResult } from '../../../engine/result';
 import type { UnitSystem } from '../../../engine/units/unitSystem';
 import { ChartView, type PickDrop } from '../../components/ChartView';
+import type { ChartOption } from '../../charts/echarts';
 import {
   cyclesOverlayOption, gFunctionChartOption, logLogChartOption, parsePickKey, placedPicks, sqrtTimeChartOption,
-  stepRateChartOption, timeChartOption, volumeChartOption,
+  stepRateChartOption, timeChartOption, timeChartPickSeries, volumeChartOption,
 } from '../../charts/options';
 import { hasShutIn, shutInDiagnostics } from '../../charts/shutInDiagnostics';
 import { fromDisplay } from '../../format/units';
@@ -15,19 +17,37 @@ import type { PickEditRequest } from './PickDialog';
 type Tab = 'volume' | 'shutin' | 'steprate' | 'overlay';
 const TARGET = 2400;
 
-export function TestCharts({ detail, analysis, units, selected, onSelect, onDrop }: {
-  detail: TestDetail; analysis: AnalysisResult; units: UnitSystem; selected: string | null;
+/**
+ * The charts of a test. The pressure-time chart is drawn from the stored samples and the
+ * downhole pressure as soon as they are read; the picks, fitted lines and diagnostic charts
+ * join it when the analysis arrives (`analysis` null until then). The record is thinned
+ * for drawing once: the picks are added to the thinned series, never re-thinned with them.
+ */
+export function TestCharts({ samples, downhole: headerDownhole, correction, type, analysis, units, selected, onSelect, onDrop }: {
+  samples: StoredSamples;
+  /** Downhole pressure of the record, Pa (gauge readings plus the constant hydrostatic correction). */
+  downhole: Float64Array;
+  /** Hydrostatic correction added to the gauge readings, Pa (0 for a downhole gauge). */
+  correction: number;
+  /** Test type as stored (chooses the diagnostic chart shown first). */
+  type: TestType;
+  analysis: AnalysisResult | null; units: UnitSystem; selected: string | null;
   onSelect: (key: string) => void; onDrop: (request: PickEditRequest) => void;
 }) {
-  const { time, pressure, rate, volume } = detail.samples;
-  const downhole = analysis.downholePressure;
-  const stepCycle = analysis.cycles.find((c) => c.stepRate && c.stepRate.steps.length > 0) ?? null;
-  const shutInCycles = analysis.cycles.filter(hasShutIn);
-  const [tab, setTab] = useState<Tab>(analysis.type === 'srt' && stepCycle ? 'steprate' : analysis.type === 'dfit' ? 'shutin' : 'volume');
+  const { time, pressure, rate, volume } = samples;
+  // The series read with the test unless the analysis corrected the gauge otherwise.
+  const downhole = analysis && analysis.hydrostaticCorrection !== correction ? analysis.downholePressure : headerDownhole;
+  const cycles = useMemo(() => analysis?.cycles ?? [], [analysis]);
+  const stepCycle = useMemo(() => cycles.find((c) => c.stepRate && c.stepRate.steps.length > 0) ?? null, [cycles]);
+  const shutInCycles = useMemo(() => cycles.filter(hasShutIn), [cycles]);
+  const [tab, setTab] = useState<Tab>(type === 'srt' ? 'steprate' : type === 'dfit' ? 'shutin' : 'volume');
+  // A step-rate test whose analysis found no stabilised steps opens on the volume chart.
+  const shown: Tab = analysis && tab === 'steprate' && !stepCycle ? 'volume' : tab;
   const [range, setRange] = useState<[number, number] | null>(null);
-  const [shutInCycle, setShutInCycle] = useState<number>(shutInCycles[0]?.cycle.index ?? 1);
-  const [showGauge, setShowGauge] = useState(analysis.hydrostaticCorrection !== 0);
-  const picks = useMemo(() => placedPicks(analysis), [analysis]);
+  const [chosenShutInCycle, setShutInCycle] = useState<number | null>(null);
+  const shutInCycle = chosenShutInCycle ?? shutInCycles[0]?.cycle.index ?? 1;
+  const [showGauge, setShowGauge] = useState(correction !== 0);
+  const picks = useMemo(() => (analysis ? placedPicks(analysis) : []), [analysis]);
   // The diagnostic charts (shut-in series over every shut-in sample, above all) are built
   // once the pressure-time chart has been on screen for a frame, so a long record shows at once.
   const [diagnosticsReady, setDiagnosticsReady] = useState(false);
@@ -38,24 +58,27 @@ export function TestCharts({ detail, analysis, units, selected, onSelect, onDrop
   }, []);
 
   const rangeSeconds = useMemo<[number, number] | null>(() => (range ? [fromDisplay(units, 'time', range[0]), fromDisplay(units, 'time', range[1])] : null), [range, units]);
-  const timeOption = useMemo(() => timeChartOption({
-    time, gaugePressure: pressure, downholePressure: downhole, rate, picks, units, target: TARGET, range: rangeSeconds, showGauge,
-  }), [time, pressure, downhole, rate, picks, units, rangeSeconds, showGauge]);
-  const volumeOption = useMemo(() => (diagnosticsReady && tab === 'volume' ? volumeChartOption({ time, volume, downholePressure: downhole, cycles: analysis.cycles, units, target: TARGET }) : null),
-    [diagnosticsReady, tab, time, volume, downhole, analysis.cycles, units]);
+  // The thinned record (min/max per pixel column for a long one): depends on the samples and the view only.
+  const recordOption = useMemo(() => timeChartOption({
+    time, gaugePressure: pressure, downholePressure: downhole, rate, picks: [], units, target: TARGET, range: rangeSeconds, showGauge,
+  }), [time, pressure, downhole, rate, units, rangeSeconds, showGauge]);
+  const timeOption = useMemo(() => (picks.length === 0 ? recordOption
+    : { ...recordOption, series: [...(recordOption.series as object[]), ...timeChartPickSeries(picks, units)] } as ChartOption), [recordOption, picks, units]);
+  const volumeOption = useMemo(() => (analysis && diagnosticsReady && shown === 'volume' ? volumeChartOption({ time, volume, downholePressure: downhole, cycles, units, target: TARGET }) : null),
+    [analysis, diagnosticsReady, shown, time, volume, downhole, cycles, units]);
   const shutIn = useMemo(() => {
-    if (!diagnosticsReady || tab !== 'shutin') return null;
-    const c = analysis.cycles.find((x) => x.cycle.index === shutInCycle && hasShutIn(x));
+    if (!diagnosticsReady || shown !== 'shutin') return null;
+    const c = cycles.find((x) => x.cycle.index === shutInCycle && hasShutIn(x));
     try { return c ? shutInDiagnostics(time, downhole, c) : null; } catch { return null; }
-  }, [diagnosticsReady, tab, analysis.cycles, shutInCycle, time, downhole]);
+  }, [diagnosticsReady, shown, cycles, shutInCycle, time, downhole]);
   const shutInOptions = useMemo(() => (shutIn ? {
     g: gFunctionChartOption(shutIn, units, 1200), sqrt: sqrtTimeChartOption(shutIn, units, 1200), log: logLogChartOption(shutIn, units, 1200),
   } : null), [shutIn, units]);
-  const stepOption = useMemo(() => (tab === 'steprate' && stepCycle ? stepRateChartOption({ cycle: stepCycle, units }) : null), [tab, stepCycle, units]);
-  const overlayOption = useMemo(() => (diagnosticsReady && tab === 'overlay' ? cyclesOverlayOption({ time, downholePressure: downhole, cycles: analysis.cycles, units, target: TARGET }) : null),
-    [diagnosticsReady, tab, time, downhole, analysis.cycles, units]);
+  const stepOption = useMemo(() => (shown === 'steprate' && stepCycle ? stepRateChartOption({ cycle: stepCycle, units }) : null), [shown, stepCycle, units]);
+  const overlayOption = useMemo(() => (analysis && diagnosticsReady && shown === 'overlay' ? cyclesOverlayOption({ time, downholePressure: downhole, cycles, units, target: TARGET }) : null),
+    [analysis, diagnosticsReady, shown, time, downhole, cycles, units]);
 
-  const cycleOf = (n: number) => analysis.cycles.find((c) => c.cycle.index === n);
+  const cycleOf = (n: number) => cycles.find((c) => c.cycle.index === n);
 
   /** Converts a drop on one chart into the sample it means. */
   const drop = (chart: 'time' | 'volume' | 'g' | 'sqrt' | 'step') => (d: PickDrop) => {
@@ -97,7 +120,7 @@ export function TestCharts({ detail, analysis, units, selected, onSelect, onDrop
     { id: 'volume', label: 'Pressure against volume', show: true },
     { id: 'shutin', label: 'Shut-in diagnostics', show: shutInCycles.length > 0 },
     { id: 'steprate', label: 'Step rate', show: stepCycle !== null },
-    { id: 'overlay', label: 'All cycles overlaid', show: analysis.cycles.length > 0 },
+    { id: 'overlay', label: 'All cycles overlaid', show: cycles.length > 0 },
   ];
 
   return (
@@ -112,15 +135,18 @@ export function TestCharts({ detail, analysis, units, selected, onSelect, onDrop
           onPickDrop={drop('time')} onPickClick={onSelect} onZoom={setRange} highlightKey={selected} />
       </section>
       <section className="panel tight">
-        <div className="tabs" role="tablist" aria-label="Diagnostic charts">
-          {tabs.filter((t) => t.show).map((t) => (
-            <button key={t.id} type="button" role="tab" className="tab" aria-selected={tab === t.id} data-testid={`tab-${t.id}`} onClick={() => setTab(t.id)}>{t.label}</button>
-          ))}
-        </div>
-        <div style={{ paddingTop: 8 }} role="tabpanel">
-          {tab === 'volume' && <ChartView option={volumeOption} testId="chart-volume" label="Pressure against pumped volume with the fitted loading line" draggable
+        {analysis && (
+          <div className="tabs" role="tablist" aria-label="Diagnostic charts">
+            {tabs.filter((t) => t.show).map((t) => (
+              <button key={t.id} type="button" role="tab" className="tab" aria-selected={shown === t.id} data-testid={`tab-${t.id}`} onClick={() => setTab(t.id)}>{t.label}</button>
+            ))}
+          </div>
+        )}
+        <div style={{ paddingTop: analysis ? 8 : 0 }} role={analysis ? 'tabpanel' : undefined}>
+          {!analysis && <p className="hint" data-testid="charts-analysing" aria-busy="true">Analysing the record… the picks, fitted lines and diagnostic charts follow in a moment.</p>}
+          {analysis && shown === 'volume' && <ChartView option={volumeOption} testId="chart-volume" label="Pressure against pumped volume with the fitted loading line" draggable
             onPickDrop={drop('volume')} onPickClick={onSelect} highlightKey={selected} />}
-          {tab === 'shutin' && (
+          {analysis && shown === 'shutin' && (
             <div className="stack">
               <div className="row">
                 <label className="row" style={{ gap: 6 }}>Cycle
@@ -141,10 +167,10 @@ export function TestCharts({ detail, analysis, units, selected, onSelect, onDrop
               ) : <p className="hint">{diagnosticsReady ? 'This cycle has no shut-in long enough to diagnose.' : 'Preparing the shut-in diagnostics…'}</p>}
             </div>
           )}
-          {tab === 'steprate' && (stepOption
+          {analysis && shown === 'steprate' && (stepOption
             ? <ChartView option={stepOption} testId="chart-steprate" label="Step-rate plot of stabilised pressure against rate" draggable onPickDrop={drop('step')} onPickClick={onSelect} highlightKey={selected} />
             : <p className="hint">No stabilised steps were found.</p>)}
-          {tab === 'overlay' && <ChartView option={overlayOption} testId="chart-overlay" label="All cycles overlaid" />}
+          {analysis && shown === 'overlay' && <ChartView option={overlayOption} testId="chart-overlay" label="All cycles overlaid" />}
         </div>
       </section>
     </div>
