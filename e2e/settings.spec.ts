@@ -78,7 +78,7 @@ test.describe('settings', () => {
     // Defaults (engine/quality/limits.ts) as an engineer writes them.
     const table = page.getByTestId('limits-table');
     await expect(page.getByTestId('limit-default-rate-stability.maxCv')).toHaveText('10\u00a0%');
-    await expect(page.getByTestId('limit-default-second-cycle.maxRepeatDifference')).toHaveText('5\u00a0%');
+    await expect(page.getByTestId('limit-default-cycle-repeat.maxRepeatDifference')).toHaveText('5\u00a0%');
     await expect(page.getByTestId('limit-default-shut-in-stability.maxEndDeclineRate')).toHaveText('5\u00a0kPa/min');
     await expect(page.getByTestId('limit-default-shut-in-stability.minDuration')).toHaveText('10\u00a0min');
     await expect(page.getByTestId('limit-default-loading-linearity.minR2')).toHaveText('0.9950');

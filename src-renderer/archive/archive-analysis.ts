@@ -13,6 +13,7 @@ import { downholePressure } from '../engine/analysis/downhole';
 import { isEngineError } from '../engine/errors';
 import type { TestRecord } from '../engine/record';
 import type { AnalysisResult } from '../engine/result';
+import { canonicalLimitKey } from '../engine/quality/limits';
 
 /**
  * A stored test and its analysis: the engine record and options made from the rows, the
@@ -48,11 +49,18 @@ export function recordOf(test: StoredTest, samples: { time: Float64Array; pressu
   return { time: samples.time, pressure: samples.pressure, rate: samples.rate, volume: samples.volume, metadata: test.metadata, source: test.source };
 }
 
+/** Limits with renamed keys under their current names, so a test's own value still wins over the project's. */
+function canonicalLimits(limits: Record<string, number>): Record<string, number> {
+  const out: Record<string, number> = {};
+  for (const [key, value] of Object.entries(limits)) out[canonicalLimitKey(key)] = value;
+  return out;
+}
+
 /** Engine options for a stored test: its type unless inferred, project limits under its own, the manual picks. */
 export function analysisOptions(test: StoredTest, limits: Record<string, number>, manualPicks: ManualPick[]): AnalysisOptions {
   return {
     type: test.typeInferred ? undefined : test.type,
-    limits: test.limits ? { ...limits, ...test.limits } : limits,
+    limits: test.limits ? { ...canonicalLimits(limits), ...canonicalLimits(test.limits) } : limits,
     manualPicks: manualPicks.map(({ cycle, kind, pick, reason }) => ({ cycle, kind, pick, reason })),
   };
 }

@@ -19,6 +19,8 @@ import type { StressEstimates } from '../../src-renderer/engine/result';
 const run = promisify(execFile);
 const PICK_KEYS = ['leakOff', 'breakdown', 'propagation', 'isip', 'closure', 'reopening', 'fitMaximum', 'extension'];
 const CRITERIA = ['loading-linearity', 'loading-stiffness', 'rate-stability', 'shut-in-stability', 'second-cycle', 'sampling', 'gauge-range'];
+/** Ids added beside the contract's ("More may be added"); the contract's are never renamed. */
+const ADDED_CRITERIA = ['cycle-repeat'];
 
 let dir = '';
 const truths: Record<string, SyntheticTruth> = {};
@@ -103,6 +105,13 @@ describe('analyze command', () => {
     const ids = x.quality.criteria.map((k: { id: string }) => k.id);
     for (const id of CRITERIA) expect(ids).toContain(id);
     for (const k of x.quality.criteria) expect([true, false, null]).toContain(k.pass);
+    // A valid later cycle: reopening / breakdown below 1 (the generator sets Pr below Pb), and
+    // ISIP and closure repeating (one ISIP and closure set for all cycles), each its own criterion.
+    const second = x.quality.criteria.find((k: { id: string }) => k.id === 'second-cycle');
+    expect(second).toMatchObject({ pass: true, limit: 1, unit: 'ratio' });
+    expect(second.value).toBeCloseTo(t[1].picks.reopening!.pressure / t[0].picks.breakdown!.pressure, 2);
+    expect(x.quality.criteria.find((k: { id: string }) => k.id === 'cycle-repeat')).toMatchObject({ pass: true, limit: 0.05, unit: 'fraction' });
+    expect(doc.results[1].quality.criteria.map((k: { id: string }) => k.id)).not.toContain('cycle-repeat');
     expect(doc.results[1].picks).toBeUndefined();
     expect(doc.results[1].cycles[0].picks.reopening).toBeUndefined();
     expect(c.err).toMatch(/xlot\.csv/);
@@ -238,15 +247,16 @@ const SHMIN_KINDS = ['estimate', 'lower-bound'];
 const SHMIN_FROM = ['closure', 'isip', 'leakOff', 'fitMaximum', 'extension'];
 // Criteria by test type (contract: "each present when it applies to the test type"). A
 // step-rate test loads in steps, not along one straight line (US EPA Region 8 step-rate
-// procedure, METHODS.md), so the two loading criteria do not apply to it; the second-cycle
-// check applies to the extended leak-off test only (common practice, METHODS.md).
+// procedure, METHODS.md), so the two loading criteria do not apply to it; the second-cycle and
+// cycle-repeat checks apply to the extended leak-off test only (common practice, METHODS.md).
 const CRITERIA_BY_TYPE: Record<string, string[]> = {
   fit: ['loading-linearity', 'loading-stiffness', 'rate-stability', 'shut-in-stability', 'sampling', 'gauge-range'],
   lot: ['loading-linearity', 'loading-stiffness', 'rate-stability', 'shut-in-stability', 'sampling', 'gauge-range'],
   dfit: ['loading-linearity', 'loading-stiffness', 'rate-stability', 'shut-in-stability', 'sampling', 'gauge-range'],
-  xlot: CRITERIA,
+  xlot: [...CRITERIA, 'cycle-repeat'],
   srt: ['rate-stability', 'shut-in-stability', 'sampling', 'gauge-range'],
 };
+const ALL_CRITERIA = [...CRITERIA, ...ADDED_CRITERIA];
 
 type Json = Record<string, any>; // eslint-disable-line @typescript-eslint/no-explicit-any
 interface ManifestTest { file: string; type: string; depthTvd: { value: number; unit: string }; samples: number; flaws: string[] }
@@ -382,7 +392,7 @@ describe('analyze --json contract', () => {
       const criteria = r.quality.criteria as Json[];
       const ids = criteria.map((k) => k.id);
       for (const id of CRITERIA_BY_TYPE[r.type]) expect(ids, `${r.file} ${id}`).toContain(id);
-      for (const id of CRITERIA.filter((x) => !CRITERIA_BY_TYPE[r.type].includes(x))) expect(ids).not.toContain(id);
+      for (const id of ALL_CRITERIA.filter((x) => !CRITERIA_BY_TYPE[r.type].includes(x))) expect(ids).not.toContain(id);
       for (const k of criteria) {
         expect(Object.keys(k)).toEqual(expect.arrayContaining(['id', 'pass', 'value', 'limit', 'message', 'unit']));
         expect([true, false, null]).toContain(k.pass);

@@ -4,6 +4,9 @@
  *
  * Sources are named in each entry; "common practice" marks a trade habit without a
  * single published source, "chosen" a value this product picked and explains.
+ * The reopening-below-breakdown bound of 'second-cycle' (ratio 1) is physical, not a tunable
+ * limit, and lives with its criterion (criteria/second-cycle.ts).
+ *
  * Limits grade records for review by a qualified engineer; they are not a substitute
  * for the operator's well-control policy and defer to local regulations and licensed practice.
  */
@@ -67,9 +70,9 @@ export const DEFAULT_LIMITS: readonly QualityLimit[] = [
     source: 'chosen.',
   },
   {
-    key: 'second-cycle.maxRepeatDifference', value: 0.05, unit: '1', display: 'percent',
-    rationale: 'ISIP and closure of the last two cycles must repeat within 5 % of their mean; reopening must be below the first-cycle breakdown.',
-    source: 'common practice: two or more cycles with ISIP and closure repeating and reopening below breakdown (METHODS.md good practice; Zoback et al. 2003).',
+    key: 'cycle-repeat.maxRepeatDifference', value: 0.05, unit: '1', display: 'percent',
+    rationale: 'ISIP and closure of the last two cycles of an extended leak-off test must each repeat within 5 % of their mean; a larger difference means the fracture was still growing or a pick is off, which lowers the confidence in Shmin.',
+    source: 'common practice: two or more cycles with ISIP and closure repeating (METHODS.md good practice; Zoback et al. 2003); 5 % chosen, as for pick-agreement.',
   },
   {
     key: 'sampling.maxInterval', value: 1, unit: 's', display: 'duration-s',
@@ -98,8 +101,27 @@ export const DEFAULT_LIMITS: readonly QualityLimit[] = [
   },
 ];
 
+/**
+ * Keys a limit had before it was renamed -> its key now. Saved project and test limits under an
+ * old key still apply: resolveLimits reads them as the new key.
+ * 'second-cycle.maxRepeatDifference' moved when the ISIP / closure repeat became its own
+ * criterion, 'cycle-repeat'.
+ */
+export const LIMIT_KEY_ALIASES: Readonly<Record<string, string>> = {
+  'second-cycle.maxRepeatDifference': 'cycle-repeat.maxRepeatDifference',
+};
+
 /** The limit entries by key. */
 const BY_KEY: ReadonlyMap<string, QualityLimit> = new Map(DEFAULT_LIMITS.map((l) => [l.key, l]));
+
+/**
+ * The current key of a limit key, through LIMIT_KEY_ALIASES.
+ * @param key a limit key, current or old. @returns the current key (the key itself when it is no alias). @throws nothing.
+ * @example canonicalLimitKey('second-cycle.maxRepeatDifference') // 'cycle-repeat.maxRepeatDifference'
+ */
+export function canonicalLimitKey(key: string): string {
+  return Object.prototype.hasOwnProperty.call(LIMIT_KEY_ALIASES, key) ? LIMIT_KEY_ALIASES[key] : key;
+}
 
 /** Resolved limits: key -> value. */
 export type LimitValues = Readonly<Record<string, number>>;
@@ -107,31 +129,38 @@ export type LimitValues = Readonly<Record<string, number>>;
 /**
  * Merge project overrides into the default limits.
  *
- * @param overrides key -> value (keys from DEFAULT_LIMITS; values finite, in the limit's unit).
- * @returns every default key with its value, overrides applied.
+ * @param overrides key -> value (keys from DEFAULT_LIMITS, or an old key of LIMIT_KEY_ALIASES,
+ *   read as its current key; values finite, in the limit's unit). When an old key and its
+ *   current key are both given, the current key's value wins.
+ * @returns every default key with its value, overrides applied (current keys only).
  * @throws EngineError 'bad-argument' for an unknown key or a non-finite value.
  * @example resolveLimits({'loading-linearity.minR2': 0.99})['loading-linearity.minR2'] // 0.99
  */
 export function resolveLimits(overrides: Record<string, number> = {}): LimitValues {
   const values: Record<string, number> = {};
   for (const l of DEFAULT_LIMITS) values[l.key] = l.value;
-  for (const [key, value] of Object.entries(overrides)) {
-    if (!BY_KEY.has(key)) {
+  const entries = Object.entries(overrides);
+  // Old keys first, so that a current key given beside its old one wins.
+  const ordered = [...entries.filter(([k]) => canonicalLimitKey(k) !== k), ...entries.filter(([k]) => canonicalLimitKey(k) === k)];
+  for (const [key, value] of ordered) {
+    const current = canonicalLimitKey(key);
+    if (!BY_KEY.has(current)) {
       throw new EngineError('bad-argument', `unknown quality limit "${key}"`, {}, `one of ${[...BY_KEY.keys()].join(', ')}`);
     }
     if (!Number.isFinite(value)) {
-      throw new EngineError('bad-argument', `quality limit "${key}" is not a finite number`, {}, `a number in ${BY_KEY.get(key)?.unit}`);
+      throw new EngineError('bad-argument', `quality limit "${key}" is not a finite number`, {}, `a number in ${BY_KEY.get(current)?.unit}`);
     }
-    values[key] = value;
+    values[current] = value;
   }
   return values;
 }
 
 /**
- * The documented limit entry for a key.
+ * The documented limit entry for a key (an old key of LIMIT_KEY_ALIASES gives the entry of its
+ * current key, whose `key` field is the current one).
  * @param key limit key. @returns the entry, or null for an unknown key. @throws nothing.
  * @example limitDefinition('sampling.maxInterval')?.unit // 's'
  */
 export function limitDefinition(key: string): QualityLimit | null {
-  return BY_KEY.get(key) ?? null;
+  return BY_KEY.get(canonicalLimitKey(key)) ?? null;
 }

@@ -48,7 +48,7 @@ describe('limit display', () => {
       return formatLimit(l.display, 'si', l.value);
     };
     expect(text('rate-stability.maxCv')).toBe('10\u00a0%');
-    expect(text('second-cycle.maxRepeatDifference')).toBe('5\u00a0%');
+    expect(text('cycle-repeat.maxRepeatDifference')).toBe('5\u00a0%');
     expect(text('gauge-range.maxFraction')).toBe('95\u00a0%');
     expect(text('pick-agreement.maxSpreadFraction')).toBe('5\u00a0%');
     expect(text('loading-linearity.minR2')).toBe('0.9950');

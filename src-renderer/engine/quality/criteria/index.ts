@@ -3,6 +3,7 @@
  * this folder exporting a QualityCriterion, and one line here.
  */
 import type { QualityCriterion } from './criterion';
+import { cycleRepeat } from './cycle-repeat';
 import { gaugeRange } from './gauge-range';
 import { loadingLinearity } from './loading-linearity';
 import { loadingStiffness } from './loading-stiffness';
@@ -18,6 +19,7 @@ export const QUALITY_CRITERIA: readonly QualityCriterion[] = [
   rateStability,
   shutInStability,
   secondCycle,
+  cycleRepeat,
   sampling,
   gaugeRange,
   pickAgreement,

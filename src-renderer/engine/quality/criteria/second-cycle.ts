@@ -1,74 +1,84 @@
-import type { CycleAnalysis } from '../../result';
+import type { CycleAnalysis, Pick } from '../../result';
 import type { QualityCriterion } from './criterion';
-import { megapascals, percent } from './criterion';
+import { megapascals } from './criterion';
 
 /** Unit of this criterion's value and limit (CriterionResult.unit). */
-const UNIT = 'fraction';
+const UNIT = 'ratio';
 
-function relativeDifference(a: number, b: number): number {
-  return Math.abs(a - b) / ((a + b) / 2);
+/**
+ * Highest allowed reopening / breakdown ratio, exclusive: the reopening must lie below the
+ * first-cycle breakdown. A physical bound, not a tunable limit: with T0 = Pb - Pr
+ * (Bredehoeft et al. 1976, METHODS.md) a reopening at or above breakdown would need a
+ * tensile strength of zero or less, so the later cycle opened something else (a new
+ * fracture, a leak, a packer or shoe bypass) and cannot confirm the first.
+ */
+export const MAX_REOPENING_TO_BREAKDOWN = 1;
+
+/** Whether a pick has a finite pressure. */
+function usable(pick: Pick | undefined): pick is Pick {
+  return pick !== undefined && Number.isFinite(pick.pressure);
 }
 
-/** The last two cycles that both have a pick of this kind. */
-function lastTwo(cycles: readonly CycleAnalysis[], kind: 'isip' | 'closure'): [CycleAnalysis, CycleAnalysis] | null {
-  const withPick = cycles.filter((c) => c.picks[kind] !== undefined).sort((a, b) => a.cycle.index - b.cycle.index);
-  if (withPick.length < 2) return null;
-  return [withPick[withPick.length - 2], withPick[withPick.length - 1]];
+/** The reopening check: its ratio and its words, or null when no pair can be compared. */
+function reopeningCheck(cycles: readonly CycleAnalysis[]): { ratio: number | null; problem: string | null; note: string } {
+  const breakdown = cycles.find((c) => c.cycle.index === 1)?.picks.breakdown;
+  // The earliest later cycle with a reopening: the one the SHmax relation uses (stress/estimates.ts).
+  const reopeningCycle = cycles.find((c) => c.cycle.index >= 2 && usable(c.picks.reopening));
+  const reopening = reopeningCycle?.picks.reopening;
+  if (!usable(reopening)) return { ratio: null, problem: null, note: 'no reopening was picked in a later cycle, so it cannot be compared with the breakdown' };
+  if (!usable(breakdown)) return { ratio: null, problem: null, note: `no first-cycle breakdown was picked to compare the reopening ${megapascals(reopening.pressure)} with` };
+  const ratio = reopening.pressure / breakdown.pressure;
+  const where = `the reopening ${megapascals(reopening.pressure)} (cycle ${reopeningCycle!.cycle.index}) is ${ratio.toFixed(3)} times the breakdown ${megapascals(breakdown.pressure)} (cycle 1)`;
+  if (ratio < MAX_REOPENING_TO_BREAKDOWN) return { ratio, problem: null, note: `${where}, below the first-cycle breakdown` };
+  if (breakdown.bound === 'lower') {
+    // The gauge clipped at the breakdown: the true breakdown was higher, by an unknown amount.
+    return { ratio: null, problem: null, note: `the reopening ${megapascals(reopening.pressure)} is not below the breakdown read at the clipped gauge ${megapascals(breakdown.pressure)}, a lower bound only, so the two cannot be compared` };
+  }
+  return { ratio, problem: `${where}, not below the first-cycle breakdown: the later cycle opened something else and does not confirm the first`, note: '' };
 }
 
 /**
- * Second cycle (XLOT): a second cycle exists; its reopening is below the first-cycle
- * breakdown; ISIP and closure of the last two cycles that have them repeat within
- * `second-cycle.maxRepeatDifference` (5 %) of their mean; each later cycle has a shut-in
- * of at least half `shut-in-stability.minDuration`. Value: the larger ISIP / closure
- * difference. Common practice (METHODS.md good practice; Zoback et al. 2003).
+ * Second cycle (XLOT): a valid later cycle exists. Checks: (1) at least two cycles; (2) every
+ * later cycle has a shut-in of at least half `shut-in-stability.minDuration` (5 min), long
+ * enough to pick its ISIP and closure; (3) the reopening of the earliest later cycle that has
+ * one is below the first-cycle breakdown. Value: reopening / breakdown (ratio, limit 1, must be
+ * below); null when there is no reopening / breakdown pair (or the breakdown is only a lower
+ * bound of a clipped gauge and the ratio is not below 1), and then the shut-in checks decide.
+ * Whether ISIP and closure repeat is the separate 'cycle-repeat' criterion.
+ * Common practice: two or more cycles, reopening below breakdown (METHODS.md good practice;
+ * Zoback et al. 2003); reopening relation Bredehoeft et al. (1976).
  */
 export const secondCycle: QualityCriterion = {
   id: 'second-cycle',
   appliesTo: ['xlot'],
+  // Major: a later cycle that is missing, unsettled or reopened above breakdown leaves no valid
+  // repeat of the test: no later-cycle closure to estimate Shmin, no T0 and no SHmax.
   severity: 'major',
   evaluate(ctx, limits) {
-    const limit = limits['second-cycle.maxRepeatDifference'];
+    const limit = MAX_REOPENING_TO_BREAKDOWN;
     const minShutIn = limits['shut-in-stability.minDuration'] / 2;
     const cycles = [...ctx.cycles].sort((a, b) => a.cycle.index - b.cycle.index);
     if (cycles.length < 2) {
-      return { pass: false, value: null, limit, message: 'Only one cycle was found: an extended leak-off test needs a second cycle to confirm ISIP and closure.', unit: UNIT };
+      return { pass: false, value: null, limit, message: 'Only one cycle was found: an extended leak-off test needs a later cycle, with a settled shut-in and a reopening below the breakdown, to confirm the first.', unit: UNIT };
     }
     const problems: string[] = [];
     const notes: string[] = [];
-    const breakdown = cycles[0].picks.breakdown;
-    const reopening = cycles.slice(1).find((c) => c.picks.reopening)?.picks.reopening;
-    if (breakdown && reopening) {
-      if (reopening.pressure >= breakdown.pressure) problems.push(`the reopening ${megapascals(reopening.pressure)} is not below the first-cycle breakdown ${megapascals(breakdown.pressure)}`);
-      else notes.push(`reopening ${megapascals(reopening.pressure)} below breakdown ${megapascals(breakdown.pressure)}`);
-    } else {
-      notes.push(reopening ? 'no first-cycle breakdown to compare the reopening with' : 'no reopening was picked in a later cycle');
-    }
     for (const c of cycles.slice(1)) {
-      const duration = ctx.time[c.cycle.shutInEnd] - ctx.time[c.cycle.pumpEnd];
-      if (c.cycle.shutInEnd <= c.cycle.pumpEnd || duration < minShutIn) {
-        problems.push(`cycle ${c.cycle.index} has no stable shut-in (${(Math.max(0, duration) / 60).toFixed(1)} min, at least ${(minShutIn / 60).toFixed(0)} min needed)`);
-      }
+      const duration = c.cycle.shutInEnd > c.cycle.pumpEnd ? ctx.time[c.cycle.shutInEnd] - ctx.time[c.cycle.pumpEnd] : 0;
+      const minutes = (duration / 60).toFixed(1);
+      if (duration < minShutIn) problems.push(`cycle ${c.cycle.index} has no stable shut-in: ${minutes} min, at least ${(minShutIn / 60).toFixed(0)} min needed`);
+      else notes.push(`cycle ${c.cycle.index} was shut in for ${minutes} min, long enough (at least ${(minShutIn / 60).toFixed(0)} min)`);
     }
-    let worst: number | null = null;
-    for (const kind of ['isip', 'closure'] as const) {
-      const pair = lastTwo(cycles, kind);
-      const label = kind === 'isip' ? 'ISIP' : 'closure';
-      if (!pair) { notes.push(`fewer than two cycles have a${kind === 'isip' ? 'n' : ''} ${label}`); continue; }
-      const a = pair[0].picks[kind]!.pressure;
-      const b = pair[1].picks[kind]!.pressure;
-      const d = relativeDifference(a, b);
-      worst = worst === null ? d : Math.max(worst, d);
-      const text = `${label} ${megapascals(a)} (cycle ${pair[0].cycle.index}) and ${megapascals(b)} (cycle ${pair[1].cycle.index}) differ by ${percent(d)}`;
-      if (d > limit) problems.push(`${text}, more than ${percent(limit)}`);
-      else notes.push(text);
-    }
+    const reopening = reopeningCheck(cycles);
+    if (reopening.problem) problems.push(reopening.problem);
+    else notes.push(reopening.note);
     if (problems.length > 0) {
-      return { pass: false, value: worst, limit, message: `The later cycles do not confirm the first: ${problems.join('; ')}.`, unit: UNIT };
+      const also = notes.length > 0 ? ` Other checks: ${notes.join('; ')}.` : '';
+      return { pass: false, value: reopening.ratio, limit, message: `The later cycles are not a valid repeat: ${problems.join('; ')}.${also}`, unit: UNIT };
     }
-    if (worst === null && !(breakdown && reopening)) {
-      return { pass: null, value: null, limit, message: `The later cycles cannot be compared: ${notes.join('; ')}.`, unit: UNIT };
-    }
-    return { pass: true, value: worst, limit, message: `The later cycles repeat: ${notes.join('; ')}.`, unit: UNIT };
+    const message = reopening.ratio === null
+      ? `The later cycles have settled shut-ins, but the reopening was not checked against the breakdown: ${notes.join('; ')}.`
+      : `A valid later cycle exists: ${notes.join('; ')}.`;
+    return { pass: true, value: reopening.ratio, limit, message, unit: UNIT };
   },
 };
