@@ -3,7 +3,7 @@
  * factors, the LAS corpus; see SOURCES.md there): the `shared/reference` folder beside
  * the repository, or the folder named by STRESS_LEDGER_REFERENCE.
  */
-import { existsSync } from 'node:fs';
+import { existsSync, readFileSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
@@ -28,4 +28,18 @@ export const REFERENCE_DIR = referenceFolder();
 /** Absolute path of a file or folder inside the reference data. */
 export function referencePath(...parts: string[]): string {
   return join(REFERENCE_DIR, ...parts);
+}
+
+/** Rows of a comma-separated reference file (first line the header), as header -> text. */
+export function readReferenceRows(...parts: string[]): Record<string, string>[] {
+  const [header, ...lines] = readFileSync(referencePath(...parts), 'utf8').trim().split(/\r?\n/);
+  const names = header.split(',');
+  return lines.map((l) => Object.fromEntries(l.split(',').map((v, i) => [names[i], v])));
+}
+
+/** Rows grouped by a key, in their order. */
+export function groupBy<T>(rows: T[], key: (r: T) => string): Map<string, T[]> {
+  const m = new Map<string, T[]>();
+  for (const r of rows) m.set(key(r), [...(m.get(key(r)) ?? []), r]);
+  return m;
 }

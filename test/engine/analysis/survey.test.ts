@@ -2,21 +2,13 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { mdAtTvd, minimumCurvature, positionAtMd, tvdAtMd, type SurveyStation } from '../../../src-renderer/engine/analysis/survey';
 import { EngineError } from '../../../src-renderer/engine/errors';
-import { referencePath } from '../../support/reference';
+import { groupBy, readReferenceRows, referencePath } from '../../support/reference';
 
 const DIR = referencePath('directional');
 const meta = JSON.parse(readFileSync(`${DIR}/iscwsa_wellpaths_meta.json`, 'utf8'));
 
 function readRows(file: string): Record<string, string>[] {
-  const [header, ...lines] = readFileSync(`${DIR}/${file}`, 'utf8').trim().split(/\r?\n/);
-  const names = header.split(',');
-  return lines.map((l) => Object.fromEntries(l.split(',').map((v, i) => [names[i], v])));
-}
-
-function groupBy<T>(rows: T[], key: (r: T) => string): Map<string, T[]> {
-  const m = new Map<string, T[]>();
-  for (const r of rows) m.set(key(r), [...(m.get(key(r)) ?? []), r]);
-  return m;
+  return readReferenceRows('directional', file);
 }
 
 describe('minimum curvature survey', () => {

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { countTextLines } from '../../../src-renderer/engine/import/lineCount';
 import { scanDelimitedBody } from '../../../src-renderer/engine/import/delimitedBody';
+import { seededRandom } from '../../../src-renderer/engine/synthetic/random';
 
 const encode = (text: string): Uint8Array => new TextEncoder().encode(text);
 
@@ -9,16 +10,10 @@ function linesBySplitting(text: string): number {
   return text.split(/\r\n|\r|\n/).length;
 }
 
-/** Deterministic pseudo-random numbers (mulberry32, common practice for reproducible tests). */
+/** Deterministic uniform numbers from the engine's seeded generator (mulberry32). */
 function uniformSource(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+  const random = seededRandom(seed);
+  return () => random.uniform();
 }
 
 describe('countTextLines', () => {

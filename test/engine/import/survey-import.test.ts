@@ -3,22 +3,14 @@ import { describe, expect, it } from 'vitest';
 import { minimumCurvature, tvdAtMd } from '../../../src-renderer/engine/analysis/survey';
 import { isSurveyFile, parseSurveyFile } from '../../../src-renderer/engine/import/survey-import';
 import { thrown } from '../../support/errors';
+import { groupBy, readReferenceRows } from '../../support/reference';
 
-const DIR = '/work/shared/reference/directional';
 const encode = (text: string) => new TextEncoder().encode(text);
 /** International foot, m (exact; NIST SP 811 appendix B). */
 const FOOT = 0.3048;
 
 function readRows(file: string): Record<string, string>[] {
-  const [header, ...lines] = readFileSync(`${DIR}/${file}`, 'utf8').trim().split(/\r?\n/);
-  const names = header.split(',');
-  return lines.map((l) => Object.fromEntries(l.split(',').map((v, i) => [names[i], v])));
-}
-
-function groupBy<T>(rows: T[], key: (r: T) => string): Map<string, T[]> {
-  const m = new Map<string, T[]>();
-  for (const r of rows) m.set(key(r), [...(m.get(key(r)) ?? []), r]);
-  return m;
+  return readReferenceRows('directional', file);
 }
 
 describe('survey import', () => {

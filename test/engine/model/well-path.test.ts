@@ -1,14 +1,10 @@
-import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { EngineError } from '../../../src-renderer/engine/errors';
 import { measuredDepthAtTvd, trueVerticalDepthAtMd, wellPathFromSurvey } from '../../../src-renderer/engine/model/well-path';
-
-const DIR = '/work/shared/reference/directional';
+import { readReferenceRows } from '../../support/reference';
 
 function wellRows(name: string): { md: number; inc: number; azi: number; tvd: number }[] {
-  const [header, ...lines] = readFileSync(`${DIR}/iscwsa_test_wells_1_2_3_wellpath.csv`, 'utf8').trim().split(/\r?\n/);
-  const names = header.split(',');
-  return lines.map((l) => Object.fromEntries(l.split(',').map((v, i) => [names[i], v])))
+  return readReferenceRows('directional', 'iscwsa_test_wells_1_2_3_wellpath.csv')
     .filter((r) => r.well === name)
     .map((r) => ({ md: Number(r.md), inc: Number(r.inc_deg), azi: Number(r.azi_deg_true), tvd: Number(r.tvd) }));
 }

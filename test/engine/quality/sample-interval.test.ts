@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { medianSampleInterval } from '../../../src-renderer/engine/quality/criteria/sample-interval';
+import { seededRandom } from '../../../src-renderer/engine/synthetic/random';
 
 /**
  * The median by its definition: sort, take the middle value for an odd count and the mean
@@ -14,16 +15,10 @@ function medianByDefinition(time: Float64Array): number {
   return intervals.length % 2 ? intervals[mid] : (intervals[mid - 1] + intervals[mid]) / 2;
 }
 
-/** Deterministic pseudo-random numbers (mulberry32, common practice for reproducible tests). */
+/** Deterministic uniform numbers from the engine's seeded generator (mulberry32). */
 function uniformSource(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+  const random = seededRandom(seed);
+  return () => random.uniform();
 }
 
 function series(n: number, next: (i: number) => number): Float64Array {
