@@ -17,6 +17,7 @@
  RATE.M3/MIN                                     : PUMP RATE
  VOL .M3                                         : CUMULATIVE PUMPED VOLUME
 ~PARAMETER INFORMATION
+ FORM.            Corbel Limestone               : FORMATION
  TVD .M           3400.0                         : TRUE VERTICAL DEPTH OF TEST
  MD  .M           3897.2                         : MEASURED DEPTH OF TEST
  MUDD.KG/M3       1390                           : MUD DENSITY

@@ -17,6 +17,7 @@
  RATE.M3/MIN                                     : PUMP RATE
  VOL .M3                                         : CUMULATIVE PUMPED VOLUME
 ~PARAMETER INFORMATION
+ FORM.            Millrace Sandstone             : FORMATION
  TVD .M           2400.0                         : TRUE VERTICAL DEPTH OF TEST
  MD  .M           2400.0                         : MEASURED DEPTH OF TEST
  MUDD.KG/M3       1290                           : MUD DENSITY

@@ -38,6 +38,24 @@ const FIELD_MODEL = {
 const shminAt = (z: number) => FIELD_MODEL.shminIntercept + FIELD_MODEL.shminGradient * z;
 const mudDensityAt = (z: number) => Math.round(1050 + 0.1 * z);
 
+/**
+ * The invented formations of Harrow Flats by TVD (m), the same in every well: a shale
+ * above 1500 m, a sandstone to 2700 m, a limestone below. Written in each test's metadata.
+ */
+const FORMATIONS: readonly { name: string; base: number }[] = [
+  { name: 'Ashgrove Shale', base: 1500 },
+  { name: 'Millrace Sandstone', base: 2700 },
+  { name: 'Corbel Limestone', base: Infinity },
+];
+const formationAt = (z: number) => FORMATIONS.find((f) => z < f.base)!.name;
+
+/** LAS text with the formation as a ~P item (FORM) at the head of the parameter section. */
+function withLasFormation(las: string, formation: string): string {
+  const marker = '~PARAMETER INFORMATION\n';
+  if (!las.includes(marker)) throw new Error('LAS text has no ~P section');
+  return las.replace(marker, `${marker} ${'FORM.'.padEnd(16)} ${formation.padEnd(30)} : FORMATION\n`);
+}
+
 type Format = DelimitedLayout | 'xlsx-kpa' | 'xlsx-psi' | 'las';
 
 interface DemoTest {
@@ -137,6 +155,7 @@ async function writeWorkbook(path: string, record: TestRecord, units: 'kpa' | 'p
       ['Open hole length', +(m.openHoleLength! / 0.3048).toFixed(1), 'ft'], ['System volume', +(m.systemVolume! / BBL).toFixed(1), 'bbl'],
       ['Compressibility', +(m.compressibility! * PSI).toExponential(4), '1/psi']);
   }
+  if (m.extra?.Formation) meta.push(['Formation', m.extra.Formation]);
   meta.push(['Note', NOTE]);
   for (const row of meta) ws.addRow(row);
   ws.addRow([]);
@@ -289,13 +308,13 @@ async function main(): Promise<void> {
         holeDiameter: (t.tvd < 1500 ? 0.31115 : 0.2159) as never,
         openHoleLength: 4 as never,
         mudType: 'water-based',
-        extra: { Note: NOTE },
+        extra: { Formation: formationAt(t.tvd), Note: NOTE },
       },
     });
     delete (record.metadata as { porePressure?: number }).porePressure;
     const name = fileName(t);
     const path = join(ROOT, name);
-    if (t.format === 'las') writeFileSync(path, recordToLas(record));
+    if (t.format === 'las') writeFileSync(path, withLasFormation(recordToLas(record), formationAt(t.tvd)));
     else if (t.format === 'xlsx-kpa') await writeWorkbook(path, record, 'kpa');
     else if (t.format === 'xlsx-psi') await writeWorkbook(path, record, 'psi');
     else writeFileSync(path, recordToDelimited(record, t.format, { startTime: `${t.date}T09:00:00Z`, title: `${CONTRACTOR} - pressure test report` }));

@@ -37,6 +37,8 @@ export interface TestSummary {
   fileName: string; fileHash: string;
   importedAt: string; importedBy: string;
   contractor?: string;
+  /** Tested formation from the test's metadata (absent when the file names none); derived, not indexed. */
+  formation?: string;
   /** Ids of unresolved team conflicts on this test (added with the team journal; absent when none). */
   openConflicts?: string[];
 }

@@ -27,7 +27,13 @@ export function matchesQuery(row: ListRow, query: ArchiveQuery): boolean {
   return true;
 }
 
-/** The list summary of a stored test (metadata and source left out). */
+/** The formation of a row: a list row's own, else the stored test's metadata (summaries are derived; no index). */
+function formationOf(row: ListRow | StoredTest): { formation?: string } {
+  const formation = row.formation ?? ('metadata' in row ? row.metadata?.formation : undefined);
+  return formation ? { formation } : {};
+}
+
+/** The list summary of a stored test (metadata and source left out; the formation is taken from the metadata). */
 export function toSummary(row: ListRow | StoredTest): TestSummary {
   return {
     id: row.id, fieldId: row.fieldId, fieldName: row.fieldName, wellId: row.wellId, wellName: row.wellName,
@@ -35,6 +41,7 @@ export function toSummary(row: ListRow | StoredTest): TestSummary {
     shmin: row.shmin, shminKind: row.shminKind, grade: row.grade, state: row.state, reviewer: row.reviewer,
     lastPickAuthor: row.lastPickAuthor, fileName: row.fileName, fileHash: row.fileHash,
     importedAt: row.importedAt, importedBy: row.importedBy, contractor: row.contractor,
+    ...formationOf(row),
     ...(row.openConflicts?.length ? { openConflicts: [...row.openConflicts] } : {}),
   };
 }

@@ -50,6 +50,8 @@ export interface TestMetadata {
   porePressure?: Pascal;
   /** Vertical stress at test depth, Pa. */
   verticalStress?: Pascal;
+  /** Name of the tested formation (or zone) as written, e.g. "Ashgrove Shale". */
+  formation?: string;
   /** Anything else in the metadata block, as written (key -> value). */
   extra?: Record<string, string>;
 }

@@ -12,7 +12,8 @@ import { stressTableCsv } from '../export/csv';
 import { stressTableXlsx } from '../export/xlsx';
 import { measuredDepthAtTvd } from '../model/well-path';
 import { buildRegionalModel, stressTable, type ModelTestInput, type RegionalModel, type StressTableRow } from '../model/regional-model';
-import { intervalsFromBreaks } from '../model/trend-intervals';
+import { UNNAMED_FORMATION, type TrendOptions } from '../model/shmin-trend';
+import { intervalsFromBreaks, intervalsFromFormations } from '../model/trend-intervals';
 import type { OverburdenSettings, VerticalStressProfile } from '../model/vertical-stress';
 import { GRADES, type Grade } from '../result';
 import { parseQuantity } from '../units/parseQuantity';
@@ -60,6 +61,9 @@ Model options:
   --rig-floor VALUE[UNIT]    rig floor elevation above sea level or ground (default 0)
   --friction MU              friction coefficient of the stress polygon (default 0.6)
   --breaks D1,D2,...         fit one Shmin line per depth interval split at these TVDs (e.g. 1500m,2500m)
+  --by-formation             fit one Shmin line per formation named in the files (metadata
+                             "Formation", "Zone" ...; LAS FORM); tests without a formation are
+                             fitted together as "${UNNAMED_FORMATION}" (not with --breaks)
   --format csv|xlsx          write the stress table export (needs --out)
   --out FILE                 export file; the format follows its extension when --format is absent
   --units si|oilfield        units of the export (default si); the JSON is always MPa and m
@@ -88,6 +92,8 @@ interface ModelCliSettings {
   ppPoints: string | null;
   /** Trend break depths, m (empty: one line). */
   breaks: number[];
+  /** One trend line per formation name (--by-formation). */
+  byFormation: boolean;
 }
 
 function length(value: string, name: string, allowZero: boolean): number {
@@ -98,7 +104,7 @@ function length(value: string, name: string, allowZero: boolean): number {
   return v;
 }
 
-function modelSettings(args: CliArguments): ModelCliSettings {
+function modelSettings(args: CliArguments, byFormation: boolean): ModelCliSettings {
   const x = args.extra;
   const minGrade = (x['min-grade'] ?? 'B').toUpperCase() as Grade;
   if (!GRADES.includes(minGrade)) throw new EngineError('bad-argument', `unknown grade "${x['min-grade']}"`, {}, 'A, B, C, D or E');
@@ -132,7 +138,9 @@ function modelSettings(args: CliArguments): ModelCliSettings {
     well: x.well?.trim() || null,
     ppPoints: x['pp-points'] ?? null,
     breaks: x.breaks === undefined ? [] : x.breaks.split(',').map((b) => length(b.trim(), 'breaks', false)),
+    byFormation,
   };
+  if (byFormation && settings.breaks.length) throw new EngineError('bad-argument', '--by-formation and --breaks cannot be used together', {}, 'one of --by-formation or --breaks');
   if (x.from !== undefined) settings.from = length(x.from, 'from', true);
   if (x.to !== undefined) settings.to = length(x.to, 'to', false);
   if (settings.from !== undefined && settings.to !== undefined && !(settings.to > settings.from)) {
@@ -159,7 +167,19 @@ function modelInput(o: CliFileOutcome): ModelTestInput | null {
     shmin: a.stress.shmin ? { value: a.stress.shmin.value, kind: a.stress.shmin.kind, from: a.stress.shmin.from } : null,
     grade: a.quality.grade, state: 'imported', reviewer: null,
     shmaxReopening: sh && sh.value !== null ? { value: sh.value, cautions } : null,
+    ...(a.metadata.formation ? { formation: a.metadata.formation } : {}),
   };
+}
+
+/** The trend shape of the settings and notes on it: one line, lines between breaks, or one line per formation. */
+function trendOptions(settings: ModelCliSettings, tests: ModelTestInput[]): { trend: TrendOptions | undefined; notes: string[] } {
+  if (settings.byFormation) {
+    const taken = tests.filter((t) => t.shmin?.kind === 'estimate' && GRADES.indexOf(t.grade) <= GRADES.indexOf(settings.minGrade));
+    const { intervals, notes } = intervalsFromFormations(taken);
+    return { trend: { shape: { kind: 'intervals', assignBy: 'formation', intervals } }, notes };
+  }
+  if (settings.breaks.length) return { trend: { shape: { kind: 'intervals', intervals: intervalsFromBreaks(settings.breaks) } }, notes: [] };
+  return { trend: undefined, notes: [] };
 }
 
 const MPA = 1e6;
@@ -173,7 +193,7 @@ function tableRowJson(r: StressTableRow): Record<string, unknown> {
     shminConfidenceLow: q(r.shminConfidenceLow, 'MPa', MPA), shminConfidenceHigh: q(r.shminConfidenceHigh, 'MPa', MPA),
     sv: q(r.sv, 'MPa', MPA), pp: q(r.pp, 'MPa', MPA),
     shmaxLow: q(r.shmaxLow, 'MPa', MPA), shmaxHigh: q(r.shmaxHigh, 'MPa', MPA),
-    regime: r.regime, effectiveStressRatio: rounded(r.effectiveStressRatio), extrapolated: r.extrapolated,
+    regime: r.regime, effectiveStressRatio: rounded(r.effectiveStressRatio), extrapolated: r.extrapolated, segment: r.segment,
   };
 }
 
@@ -198,6 +218,7 @@ function modelDocument(model: RegionalModel, rows: StressTableRow[], outcomes: C
       tvd: q(t.tvd, 'm', 1),
       shmin: t.shmin ? { value: rounded(t.shmin.value / MPA), unit: 'MPa', kind: t.shmin.kind, from: t.shmin.from } : null,
       grade: t.grade, used: t.used, role: t.role, ...(t.reason ? { reason: t.reason } : {}),
+      ...(settings.byFormation || t.formation ? { formation: t.formation ?? null } : {}),
       weight: t.weight, studentisedResidual: rounded(t.studentisedResidual ?? null), outlier: t.outlier,
       effectiveStressRatio: rounded(t.effectiveStressRatio), well: t.well, type: t.type ?? null, error: null,
     };
@@ -229,6 +250,7 @@ function modelDocument(model: RegionalModel, rows: StressTableRow[], outcomes: C
     settings: {
       minGrade: settings.minGrade, frictionCoefficient: settings.friction, step: q(settings.step, 'm', 1),
       breaks: settings.breaks.map((b) => q(b, 'm', 1)),
+      byFormation: settings.byFormation,
       waterDepth: q(settings.overburden.waterDepth ?? 0, 'm', 1), rigFloorElevation: q(settings.overburden.rigFloorElevation ?? 0, 'm', 1),
       units: settings.units, export: settings.out ? { format: settings.format, file: settings.out } : null,
       densityLog: inputs.densityLog ? { file: inputs.densityLog.file, from: inputs.densityLog.given } : null,
@@ -272,7 +294,12 @@ export async function runModelCommand(
 ): Promise<number> {
   const sink = (w: typeof io.stdout) => ({ write: (s: string) => (typeof w === 'function' ? w(s) : w.write(s)) });
   const cio = { stdout: sink(io.stdout), stderr: sink(io.stderr) };
-  const list = argv[0] === 'model' ? argv : ['model', ...argv];
+  const given = argv[0] === 'model' ? argv : ['model', ...argv];
+  // --by-formation is a flag of this command alone: taken out before the shared parser (not after "--").
+  const separator = given.indexOf('--');
+  const options = separator >= 0 ? given.slice(0, separator) : given;
+  const byFormation = options.includes('--by-formation');
+  const list = byFormation ? [...options.filter((a) => a !== '--by-formation'), ...(separator >= 0 ? given.slice(separator) : [])] : given;
   const wantsJson = list.includes('--json');
   let args: CliArguments;
   let settings: ModelCliSettings;
@@ -287,7 +314,7 @@ export async function runModelCommand(
       return 0;
     }
     if (args.files.length === 0) throw new EngineError('bad-argument', 'no file to model', {}, 'one or more file paths after "model"');
-    settings = modelSettings(args);
+    settings = modelSettings(args, byFormation);
     ({ tests: testFiles, side } = await sortModelFiles(args.files));
     inputs = await sideInputs(args, settings, side, cio.stderr);
     sv = verticalStressProfile(args, settings, inputs);
@@ -299,11 +326,13 @@ export async function runModelCommand(
   const tests = outcomes.map(modelInput).filter((t): t is ModelTestInput => t !== null);
   let status = outcomes.some((o) => o.error) || side.some((f) => f.error) ? 1 : 0;
   try {
+    const shape = trendOptions(settings, tests);
     const model = buildRegionalModel(tests, {
       minGrade: settings.minGrade, acceptedOnly: false, frictionCoefficient: settings.friction,
-      overburden: settings.overburden, verticalStress: sv, porePressure: inputs.porePressure,
-      trend: settings.breaks.length ? { shape: { kind: 'intervals', intervals: intervalsFromBreaks(settings.breaks) } } : undefined,
+      overburden: settings.overburden, verticalStress: sv, porePressure: inputs.porePressure, trend: shape.trend,
     });
+    model.provenance.push(...shape.notes);
+    for (const note of shape.notes) if (/no formation name|overlap/.test(note)) cio.stderr.write(`note: ${note}\n`);
     const range = tableRange(model, settings);
     const path = inputs.wellPath;
     if (path) model.provenance.push(path.provenance);
@@ -324,7 +353,7 @@ export async function runModelCommand(
     }
     const doc = modelDocument(model, rows, outcomes, settings, inputs, side);
     if (args.json) cio.stdout.write(JSON.stringify(doc, null, 2) + '\n');
-    else cio.stdout.write(modelSummaryText(model, rows));
+    else cio.stdout.write(modelSummaryText(model, rows, settings.byFormation));
     return status;
   } catch (e) {
     if (isEngineError(e)) return badArguments(e, wantsJson, cio);
@@ -332,13 +361,14 @@ export async function runModelCommand(
   }
 }
 
-function modelSummaryText(model: RegionalModel, rows: StressTableRow[]): string {
+function modelSummaryText(model: RegionalModel, rows: StressTableRow[], byFormation: boolean): string {
   const lines: string[] = [];
-  for (const t of model.tests) lines.push(`${t.file}: ${t.used ? 'fitted' : `not fitted (${t.role === 'lower-bound' ? 'lower bound' : t.reason ?? t.role})`}, grade ${t.grade}${t.outlier ? ', OUTLIER' : ''}`);
-  const seg = model.trend.segments[0];
-  lines.push(seg
-    ? `Shmin = ${(seg.intercept / MPA).toFixed(3)} MPa + ${(seg.gradient / 1e3).toFixed(3)} kPa/m x TVD (R2 ${seg.r2.toFixed(4)}, n ${seg.n})`
-    : 'No Shmin trend could be fitted.');
+  for (const t of model.tests) lines.push(`${t.file}: ${t.used ? 'fitted' : `not fitted (${t.role === 'lower-bound' ? 'lower bound' : t.reason ?? t.role})`}, grade ${t.grade}${byFormation ? `, formation ${t.formation ?? UNNAMED_FORMATION}` : ''}${t.outlier ? ', OUTLIER' : ''}`);
+  const segments = model.trend.segments;
+  const line = (seg: RegionalModel['trend']['segments'][number]) => `Shmin = ${(seg.intercept / MPA).toFixed(3)} MPa + ${(seg.gradient / 1e3).toFixed(3)} kPa/m x TVD (R2 ${seg.r2.toFixed(4)}, n ${seg.n})`;
+  if (segments.length === 0) lines.push('No Shmin trend could be fitted.');
+  else if (segments.length === 1 && segments[0].top === null) lines.push(line(segments[0]));
+  else for (const seg of segments) lines.push(`${seg.name}: ${line(seg)}`);
   const withMd = rows.some((r) => r.md !== null);
   lines.push(`TVD m  ${withMd ? '  MD m  ' : ''}  Pp MPa   Shmin MPa (low-high)        Sv MPa   SHmax MPa (low-high)`);
   for (const r of rows) {

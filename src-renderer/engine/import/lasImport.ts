@@ -178,7 +178,7 @@ function roleOf(i: number, found: Record<'pressure' | 'rate' | 'volume', number>
   return i === found.pressure ? 'pressure' : i === found.rate ? 'rate' : i === found.volume ? 'volume' : 'other';
 }
 
-/** Well, field, contractor and date from ~W; recognised parameters (mud weight ...) from ~P. */
+/** Well, field, contractor, date and formation from ~W; recognised parameters (mud weight, FORM ...) from ~P. */
 function lasMetadata(sections: LasSections, version: number, warnings: string[]): TestMetadata {
   const entries = sections.parameters.map((p) => ({
     key: p.description || p.mnemonic, value: p.unit ? `${p.value} ${p.unit}` : p.value, location: { line: p.line },
@@ -200,5 +200,9 @@ function lasMetadata(sections: LasSections, version: number, warnings: string[])
   if (well('FLD')) metadata.field = well('FLD');
   if (well('SRVC')) metadata.contractor = well('SRVC');
   if (/^\d{4}-\d{2}-\d{2}/.test(well('DATE'))) metadata.date = well('DATE').slice(0, 10);
+  // The tested formation: a FORM or FORMATION item in ~P (value) or ~W (LAS 1.2 writes it in the description place).
+  const formationParameter = sections.parameters.find((p) => /^(FORM|FORMATION)$/i.test(p.mnemonic))?.value.trim();
+  const formation = formationParameter || well('FORM') || well('FORMATION');
+  if (formation) metadata.formation = formation;
   return metadata;
 }

@@ -54,6 +54,7 @@ const TEXT_RULES: readonly { test: RegExp; apply: (m: TestMetadata, v: string) =
   { test: /^field( name)?$/, apply: (m, v) => { m.field = v; } },
   { test: /^(contractor|service company|test company|company|pumping company)$/, apply: (m, v) => { m.contractor = v; } },
   { test: /^((mud|fluid) (type|system)|mud)$/, apply: (m, v) => { m.mudType = v; } },
+  { test: /^(formation( name)?|tested formation|formation tested|(tested )?zone|form)$/, apply: (m, v) => { m.formation = v; } },
 ];
 
 const UNIT_HINT = /^(pressure|rate|volume|time|depth) units?$/;

@@ -40,6 +40,9 @@ export interface TrendPoint {
 /** A named depth interval (a formation or a chosen depth range): top inclusive, base exclusive, m. */
 export interface DepthInterval { name: string; top: number; base: number }
 
+/** Group name of tests that carry no formation name when the trend is fitted by formation. */
+export const UNNAMED_FORMATION = 'unnamed';
+
 /** Straight line over all depths, or one line per interval (assigned by depth, or by the test's formation name). */
 export type TrendShape =
   | { kind: 'linear' }
@@ -189,7 +192,9 @@ export function shminTrendAt(trend: ShminTrend, tvd: number): TrendValue | null 
 function assign(p: TrendPoint, shape: TrendShape): DepthInterval | null {
   if (shape.kind === 'linear') return null;
   if (shape.assignBy === 'formation') {
-    return shape.intervals.find((i) => p.formation !== undefined && i.name.toLowerCase() === p.formation.toLowerCase()) ?? null;
+    // A test without a formation name belongs to the interval named UNNAMED_FORMATION, if any.
+    const name = (p.formation?.trim() || UNNAMED_FORMATION).toLowerCase();
+    return shape.intervals.find((i) => i.name.toLowerCase() === name) ?? null;
   }
   return shape.intervals.find((i) => p.tvd >= i.top && p.tvd < i.base) ?? null;
 }

@@ -19,9 +19,9 @@ import { parseSurveyFile } from '../../../engine/import/survey-import';
 import { buildRegionalModel, stressTable, type ModelTestInput, type RegionalModel, type StressTableRow } from '../../../engine/model/regional-model';
 import { parseLasFile } from '../../../engine/import/lasImport';
 import type { DepthLog } from '../../../engine/record';
-import { intervalsFromBreaks } from '../../../engine/model/trend-intervals';
 import { verticalStressFromDensityLog, verticalStressFromGradient } from '../../../engine/model/vertical-stress';
 import { depthPlotOption, wellColors, GRADE_SYMBOL, type DepthAxisMode } from './depthPlotOption';
+import { testsHaveFormations, trendOptionsForChoice, type TrendChoice } from './modelInputs';
 
 /** Elevations of a well, m (rig floor above sea level or ground; water depth offshore). */
 export interface ModelWell {
@@ -58,7 +58,15 @@ export interface StressModelScreenProps {
   saveWellSurvey?: (well: ModelWell, stations: { md: number; inc: number; azi: number }[], sourceFile: string) => Promise<void>;
   /** Pore-pressure measurements to start with (otherwise loaded with openFiles). */
   porePressurePoints?: { file: string; points: PorePressurePoint[] } | null;
+  /** Trend shape to start with (default one line); "by formation" applies only when tests name their formations. */
+  initialTrend?: TrendChoice;
 }
+
+const TREND_CHOICES: { id: TrendChoice; label: string }[] = [
+  { id: 'one', label: 'one line' },
+  { id: 'breaks', label: 'by depth breaks' },
+  { id: 'formation', label: 'by formation' },
+];
 
 const CSV_MIME = 'text/csv';
 const XLSX_MIME = 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet';
@@ -91,6 +99,11 @@ export function StressModelScreen(props: StressModelScreenProps) {
   const [rigFloor, setRigFloor] = useState('');
   const [step, setStep] = useState(units === 'si' ? '100' : '500');
   const [breaks, setBreaks] = useState('');
+  const [trendChoice, setTrendChoice] = useState<TrendChoice>(props.initialTrend ?? 'one');
+  // Tests the trend may fit: accepted, of the chosen field and wells (the formations offered come from these).
+  const fittable = useMemo(() => tests.filter((t) => t.field === activeField && chosenWells.includes(t.well) && t.state === 'accepted'), [tests, activeField, chosenWells]);
+  const formationsOffered = testsHaveFormations(fittable);
+  const activeTrend: TrendChoice = trendChoice === 'formation' && !formationsOffered ? 'one' : trendChoice;
   const [busy, setBusy] = useState(false);
 
   const built = useMemo((): { model: RegionalModel; rows: StressTableRow[] } | { error: string } | null => {
@@ -110,11 +123,12 @@ export function StressModelScreen(props: StressModelScreenProps) {
         pp = porePressureFromMeasurements(chosen.points, { datum: overburden.rigFloorElevation, gradientBelow: ppGradientSI, well: chosen.well });
       }
       const breakDepths = breaks.split(/[;,\s]+/).filter((b) => b !== '').map((b) => fromDisplay(units, 'depth', numberInput(b) ?? NaN));
+      const shape = trendOptionsForChoice(activeTrend, fittable, breakDepths);
       const model = buildRegionalModel(tests, {
         field: activeField, wells: chosenWells, acceptedOnly: true, minGrade: 'D',
-        frictionCoefficient: numberInput(friction) ?? NaN, verticalStress: sv, porePressure: pp, overburden,
-        trend: breakDepths.length ? { shape: { kind: 'intervals', intervals: intervalsFromBreaks(breakDepths) } } : undefined,
+        frictionCoefficient: numberInput(friction) ?? NaN, verticalStress: sv, porePressure: pp, overburden, trend: shape.trend,
       });
+      model.provenance.push(...shape.notes);
       const stepM = fromDisplay(units, 'depth', numberInput(step) ?? NaN);
       if (path) model.provenance.push(path.provenance);
       const depths = model.tests.filter((t) => t.tvd !== null && t.field === activeField).map((t) => t.tvd!);
@@ -125,7 +139,7 @@ export function StressModelScreen(props: StressModelScreenProps) {
     } catch (e) {
       return { error: e instanceof Error ? e.message : String(e) };
     }
-  }, [tests, activeField, chosenWells, friction, svGradient, ppGradient, waterDepth, rigFloor, step, units, single, densityLog, breaks, ppPoints]);
+  }, [tests, activeField, chosenWells, friction, svGradient, ppGradient, waterDepth, rigFloor, step, units, single, densityLog, breaks, ppPoints, activeTrend, fittable]);
 
   async function loadPorePressurePoints() {
     if (!openFiles) return;
@@ -188,8 +202,11 @@ export function StressModelScreen(props: StressModelScreenProps) {
 
   const model = built && 'model' in built ? built.model : null;
   const seg = model?.trend.segments[0];
+  // Lines of intervals (breaks or formations) are shown with their names, even a single one.
+  const namedLines = !!model && model.trend.segments.some((sg) => sg.top !== null);
   const colors = model ? wellColors(model) : new Map<string, string>();
   const shownTests = model ? model.tests.filter((t) => t.field === activeField && chosenWells.includes(t.well) && (showUnaccepted || t.state === 'accepted')) : [];
+  const showFormation = shownTests.some((t) => !!t.formation);
   const hiddenCount = model ? model.tests.filter((t) => t.field === activeField && chosenWells.includes(t.well) && t.state !== 'accepted').length : 0;
   const pu = unitLabel(units, 'pressure');
   const hasMd = !!built && 'rows' in built && built.rows.some((r) => r.md !== null);
@@ -260,7 +277,16 @@ export function StressModelScreen(props: StressModelScreenProps) {
               : openFiles && saveWellSurvey && single.id !== undefined
                 ? <button type="button" className="btn small" onClick={() => void loadSurvey()} data-testid="model-load-survey">Load survey for {single.name}…</button>
                 : <span className="hint">{single.name} has no survey: no MD column</span>)}
-            <label title="TVDs where the trend is split into separate lines, e.g. 1500, 2500">Trend breaks [{unitLabel(units, 'depth')}] <input size={10} value={breaks} placeholder="none" onChange={(e) => setBreaks(e.target.value)} data-testid="model-breaks" /></label>
+          </div>
+          <div className="row" role="group" aria-label="Trend">
+            <span className="hint">Trend:</span>
+            {TREND_CHOICES.filter((c) => c.id !== 'formation' || formationsOffered).map((c) => (
+              <button key={c.id} type="button" className="tab" aria-selected={activeTrend === c.id} data-testid={`model-trend-${c.id}`} onClick={() => setTrendChoice(c.id)}>{c.label}</button>
+            ))}
+            {activeTrend === 'breaks' && (
+              <label title="TVDs where the trend is split into separate lines, e.g. 1500, 2500">Trend breaks [{unitLabel(units, 'depth')}] <input size={10} value={breaks} placeholder="none" onChange={(e) => setBreaks(e.target.value)} data-testid="model-breaks" /></label>
+            )}
+            {activeTrend === 'formation' && <span className="hint" data-testid="model-trend-formation-note">One line per formation named in the files; tests without a formation are fitted together as &quot;unnamed&quot;.</span>}
           </div>
         </div>
       )}
@@ -270,10 +296,10 @@ export function StressModelScreen(props: StressModelScreenProps) {
       {model && (
         <>
           <div className="panel tight" data-testid="model-trend">
-            {model.trend.segments.length > 1 && model.trend.segments.map((sg) => (
+            {namedLines && model.trend.segments.map((sg) => (
               <div key={sg.name}>{sg.name}: Shmin = {toDisplay(units, 'pressure', sg.intercept).toFixed(units === 'si' ? 2 : 0)} {unitLabel(units, 'pressure')} + {toDisplay(units, 'gradient', sg.gradient).toFixed(units === 'si' ? 2 : 3)} {unitLabel(units, 'gradient')} × TVD · R² {sg.r2.toFixed(3)} · n {sg.n}</div>
             ))}
-            {model.trend.segments.length > 1 ? null : seg
+            {namedLines ? null : seg
               ? <span>Shmin = {toDisplay(units, 'pressure', seg.intercept).toFixed(units === 'si' ? 2 : 0)} {unitLabel(units, 'pressure')} + {toDisplay(units, 'gradient', seg.gradient).toFixed(units === 'si' ? 2 : 3)} {unitLabel(units, 'gradient')} × TVD · R² {seg.r2.toFixed(3)} · n {seg.n} · {(model.trend.confidence * 100).toFixed(0)} % bands</span>
               : <span>No Shmin trend: {model.trend.provenance.filter((x) => x.startsWith('No trend')).join(' ') || 'no accepted tests with a Shmin value.'}</span>}
             {model.cautions.slice(1).map((c) => <p key={c} className="shmax-caution">{c}</p>)}
@@ -286,7 +312,7 @@ export function StressModelScreen(props: StressModelScreenProps) {
           </p>
           <div className="panel tight">
             <table className="grid-table" data-testid="model-tests">
-              <thead><tr><th>Well</th><th>File</th><th>TVD [{unitLabel(units, 'depth')}]</th><th>Shmin [{unitLabel(units, 'pressure')}]</th><th>Grade</th><th>State</th><th>Signed off by</th><th>In fit</th></tr></thead>
+              <thead><tr><th>Well</th><th>File</th><th>TVD [{unitLabel(units, 'depth')}]</th><th>Shmin [{unitLabel(units, 'pressure')}]</th>{showFormation && <th>Formation</th>}<th>Grade</th><th>State</th><th>Signed off by</th><th>In fit</th></tr></thead>
               <tbody>
                 {shownTests.map((t) => (
                   <tr key={t.testId} data-testid="model-test-row">
@@ -294,6 +320,7 @@ export function StressModelScreen(props: StressModelScreenProps) {
                     <td><button type="button" className="btn link" onClick={() => onOpenTest(t.testId)}>{t.file}</button></td>
                     <td>{t.tvd === null ? '–' : toDisplay(units, 'depth', t.tvd).toFixed(0)}</td>
                     <td>{p(t.shmin?.value ?? null)}{t.shmin && t.shmin.kind !== 'estimate' ? ` (${t.shmin.kind})` : ''}</td>
+                    {showFormation && <td>{t.formation ?? '–'}</td>}
                     <td>{t.grade}</td><td>{t.state}</td><td>{t.state === 'accepted' ? t.reviewer ?? '–' : '–'}</td>
                     <td>{t.used ? (t.outlier ? 'yes, outlier' : 'yes') : `no${t.reason ? `: ${t.reason}` : t.role === 'lower-bound' ? ': lower bound' : ''}`}</td>
                   </tr>
@@ -304,10 +331,10 @@ export function StressModelScreen(props: StressModelScreenProps) {
           <details className="panel tight">
             <summary>Stress table ({built && 'rows' in built ? built.rows.length : 0} rows) and provenance</summary>
             <table className="grid-table" data-testid="model-table">
-              <thead><tr><th>TVD [{unitLabel(units, 'depth')}]</th>{hasMd && <th>MD [{unitLabel(units, 'depth')}]</th>}<th>Pp [{pu}]</th><th>Shmin [{pu}]</th><th>Shmin low–high [{pu}]</th><th>SHmax high [{pu}]</th><th>Sv [{pu}]</th><th>Regime</th></tr></thead>
+              <thead><tr><th>TVD [{unitLabel(units, 'depth')}]</th>{hasMd && <th>MD [{unitLabel(units, 'depth')}]</th>}<th>Pp [{pu}]</th><th>Shmin [{pu}]</th><th>Shmin low–high [{pu}]</th><th>SHmax high [{pu}]</th><th>Sv [{pu}]</th><th>Regime</th>{namedLines && <th>Trend line</th>}</tr></thead>
               <tbody>
                 {built && 'rows' in built && built.rows.map((r) => (
-                  <tr key={r.tvd}><td>{toDisplay(units, 'depth', r.tvd).toFixed(0)}</td>{hasMd && <td>{r.md === null ? '–' : toDisplay(units, 'depth', r.md).toFixed(0)}</td>}<td>{p(r.pp)}</td><td>{p(r.shmin)}</td><td>{p(r.shminLow)}–{p(r.shminHigh)}</td><td>{p(r.shmaxHigh)}</td><td>{p(r.sv)}</td><td>{r.regime ?? '–'}</td></tr>
+                  <tr key={r.tvd}><td>{toDisplay(units, 'depth', r.tvd).toFixed(0)}</td>{hasMd && <td>{r.md === null ? '–' : toDisplay(units, 'depth', r.md).toFixed(0)}</td>}<td>{p(r.pp)}</td><td>{p(r.shmin)}</td><td>{p(r.shminLow)}–{p(r.shminHigh)}</td><td>{p(r.shmaxHigh)}</td><td>{p(r.sv)}</td><td>{r.regime ?? '–'}</td>{namedLines && <td>{r.segment ?? '–'}</td>}</tr>
                 ))}
               </tbody>
             </table>

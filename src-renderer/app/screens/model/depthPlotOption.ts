@@ -35,6 +35,18 @@ export const CURVE_STYLE = {
   eaton: { color: '#7a7a7a', dash: [8, 3] as number[], width: 1.2, name: 'Eaton 1969, ν 0.25 (reference)' },
 };
 
+/**
+ * Styles of the Shmin trend lines when the trend is fitted per interval (depth breaks or
+ * formations), reused cyclically: vermillion first (the one-line colour), then reddish
+ * purple, orange and bluish green (Okabe & Ito 2008), each with its own dash.
+ */
+export const SEGMENT_STYLES: { color: string; dash: 'solid' | number[] }[] = [
+  { color: '#D55E00', dash: 'solid' },
+  { color: '#CC79A7', dash: [12, 4] },
+  { color: '#E69F00', dash: [4, 3] },
+  { color: '#009E73', dash: [12, 3, 3, 3] },
+];
+
 /** Poisson's ratio of the Eaton reference curve (a common-practice mid value for shales and sands). */
 export const EATON_REFERENCE_POISSON = 0.25;
 
@@ -134,6 +146,25 @@ export function porePressurePointSeries(model: RegionalModel, view: Pick<DepthPl
 }
 
 /**
+ * The Shmin trend line(s): one series "Shmin trend" for a single all-depth line; for a trend
+ * fitted per interval (depth breaks or formations), one series per line, drawn over the table
+ * rows that use it and named "Shmin trend: <line name>" in the legend.
+ *
+ * @param model the model. @param rows the stress table (each row names its line).
+ * @param toX pressure and TVD to the x value. @param toDepth TVD m to the shown depth.
+ * @returns the series, ids "shmin" or "shmin-line-<i>" in the trend's order.
+ */
+export function shminTrendCurves(model: RegionalModel, rows: StressTableRow[], toX: (p: number, z: number) => number | null, toDepth: (z: number) => number): LineSeriesOption[] {
+  const segments = model.trend.segments;
+  if (!segments.some((sg) => sg.top !== null)) return [curve('shmin', rows, (r) => r.shmin, CURVE_STYLE.shmin, toX, toDepth)];
+  return segments.map((sg, i) => {
+    const style = SEGMENT_STYLES[i % SEGMENT_STYLES.length];
+    return curve(`shmin-line-${i}`, rows, (r) => (r.segment === sg.name ? r.shmin : null),
+      { ...CURVE_STYLE.shmin, color: style.color, dash: style.dash, name: `${CURVE_STYLE.shmin.name}: ${sg.name}` }, toX, toDepth);
+  });
+}
+
+/**
  * Builds the depth-plot option.
  *
  * @param model the fitted model (its tests carry state, grade, role, outlier).
@@ -149,7 +180,7 @@ export function depthPlotOption(model: RegionalModel, rows: StressTableRow[], vi
   const series: (LineSeriesOption | ScatterSeriesOption)[] = [
     curve('sv', rows, (r) => r.sv, CURVE_STYLE.sv, axis.convert, toDepth),
     porePressureCurve(model, rows, axis.convert, toDepth),
-    curve('shmin', rows, (r) => r.shmin, CURVE_STYLE.shmin, axis.convert, toDepth),
+    ...shminTrendCurves(model, rows, axis.convert, toDepth),
     curve('shmin-conf-low', rows, (r) => r.shminConfidenceLow, CURVE_STYLE.confidence, axis.convert, toDepth),
     curve('shmin-conf-high', rows, (r) => r.shminConfidenceHigh, { ...CURVE_STYLE.confidence }, axis.convert, toDepth),
     curve('shmin-pred-low', rows, (r) => r.shminLow, CURVE_STYLE.prediction, axis.convert, toDepth),
