@@ -160,6 +160,17 @@ export function timeChartPickSeries(picks: PlacedPick[], units: UnitSystem): Sca
   return pickSeries(picks.map((p) => ({ key: pickKey(p.cycle, p.kind), kind: p.kind, x: sx(p.pick.time), y: sp(p.pick.pressure) })));
 }
 
+/**
+ * True when the lowest of the series is only gauge noise below zero (within 2 % of the
+ * highest value): the pressure axis then starts at 0 instead of a "nice" negative tick.
+ */
+export function onlyNoiseBelowZero(series: Float64Array[]): boolean {
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (const s of series) for (let i = 0; i < s.length; i++) { const v = s[i]; if (v < lo) lo = v; if (v > hi) hi = v; }
+  return lo < 0 && hi > 0 && -lo <= 0.02 * hi;
+}
+
 /** Pressure (left axis) and pump rate (right axis) against time, with every pick. */
 export function timeChartOption(input: TimeChartInput): ChartOption {
   const { time, units } = input;
@@ -197,7 +208,8 @@ export function timeChartOption(input: TimeChartInput): ChartOption {
       min: n ? niceFloor(sx(time[0])) : 0, max: n ? niceCeil(sx(time[n - 1])) : 1,
     },
     yAxis: [
-      { type: 'value', ...AXIS_COMMON, name: axisName('Pressure', unitLabel(units, 'pressure')), nameGap: 48, scale: false },
+      { type: 'value', ...AXIS_COMMON, name: axisName('Pressure', unitLabel(units, 'pressure')), nameGap: 48, scale: false,
+        ...(onlyNoiseBelowZero(input.showGauge ? [input.downholePressure, input.gaugePressure] : [input.downholePressure]) ? { min: 0 } : {}) },
       { type: 'value', ...AXIS_COMMON, name: axisName('Rate', unitLabel(units, 'rate')), nameGap: 44, splitLine: { show: false } },
     ],
     dataZoom: [
@@ -359,10 +371,10 @@ export function sqrtTimeChartOption(s: ShutInSeries, units: UnitSystem, target: 
   return {
     ...base(),
     grid: { left: 58, right: 58, top: 44, bottom: 40 },
-    xAxis: { type: 'value', ...AXIS_COMMON, name: 'Square root of time since shut-in (s^½)', nameGap: 24, min: 0 },
+    xAxis: { type: 'value', ...AXIS_COMMON, name: 'Square root of time since shut-in (√s)', nameGap: 24, min: 0 },
     yAxis: [
       { type: 'value', ...AXIS_COMMON, name: axisName('Pressure', unitLabel(units, 'pressure')), nameGap: 44, scale: true },
-      { type: 'value', ...AXIS_COMMON, name: axisName('dP/d√t', `${unitLabel(units, 'pressure')}/s^½`), nameGap: 44, splitLine: { show: false } },
+      { type: 'value', ...AXIS_COMMON, name: axisName('dP/d√t', `${unitLabel(units, 'pressure')}/√s`), nameGap: 44, splitLine: { show: false } },
     ],
     series: [
       { id: 'p', name: 'Pressure', type: 'line', showSymbol: false, yAxisIndex: 0, lineStyle: { color: SERIES_COLOR.downhole, width: 1.5 },

@@ -30,6 +30,9 @@ export function ArchiveScreen() {
   const [filter, setFilter] = useState<ListFilter>(EMPTY_FILTER);
   const [sort, setSort] = useState<ListSort>({ key: 'wellName', descending: false });
   const [selected, setSelected] = useState(0);
+  // The TVD inputs keep what was typed; clearing the filters draws them afresh (empty).
+  const [tvdInputs, setTvdInputs] = useState(0);
+  const filtered = (Object.keys(EMPTY_FILTER) as (keyof ListFilter)[]).some((k) => filter[k] !== EMPTY_FILTER[k]);
   const deferredFilter = useDeferredValue(filter);
 
   useEffect(() => {
@@ -123,14 +126,14 @@ export function ArchiveScreen() {
         </label>
         <div className="field" role="group" aria-label={`TVD range (${unitLabel(units, 'depth')})`}>
           <span className="hint">TVD ({unitLabel(units, 'depth')})</span>
-          <div className="row" style={{ gap: 4, flexWrap: 'nowrap' }}>
-            <input type="number" aria-label="TVD from" placeholder="min" style={{ width: '50%' }} data-testid="filter-tvd-from"
+          <div className="row" style={{ gap: 4, flexWrap: 'nowrap' }} key={tvdInputs}>
+            <input type="number" aria-label="TVD from" placeholder="from" min={0} style={{ width: '50%' }} data-testid="filter-tvd-from"
               onChange={(e) => set('tvdFrom', e.target.value === '' ? null : fromDisplay(units, 'depth', Number(e.target.value)))} />
-            <input type="number" aria-label="TVD to" placeholder="max" style={{ width: '50%' }} data-testid="filter-tvd-to"
+            <input type="number" aria-label="TVD to" placeholder="to" min={0} style={{ width: '50%' }} data-testid="filter-tvd-to"
               onChange={(e) => set('tvdTo', e.target.value === '' ? null : fromDisplay(units, 'depth', Number(e.target.value)))} />
           </div>
         </div>
-        <button type="button" className="btn" onClick={() => setFilter(EMPTY_FILTER)} disabled={filter === EMPTY_FILTER}>Clear</button>
+        <button type="button" className="btn" onClick={() => { setFilter(EMPTY_FILTER); setTvdInputs((n) => n + 1); setSelected(0); }} disabled={!filtered}>Clear</button>
       </div>
 
       <div className="grid-list" data-testid="test-list" role="grid" aria-label="Tests" aria-rowcount={shown.length + 1}>
@@ -139,7 +142,7 @@ export function ArchiveScreen() {
             <div key={c.key} className={c.num ? 'num' : undefined} role="columnheader"
               aria-sort={sort.key === c.key ? (sort.descending ? 'descending' : 'ascending') : 'none'}>
               <button type="button" onClick={() => toggleSort(c.key)} data-testid={`sort-${c.key}`}>
-                {c.label}{c.key === 'depthTvd' ? ` (${unitLabel(units, 'depth')})` : c.key === 'shmin' ? ` (${unitLabel(units, 'pressure')})` : ''}
+                {c.label}{c.key === 'depthTvd' ? ` (${unitLabel(units, 'depth')})` : c.key === 'shmin' ? ` (${unitLabel(units, 'pressure')} · EMW)` : ''}
                 <span aria-hidden="true">{sort.key === c.key ? (sort.descending ? '▼' : '▲') : ''}</span>
               </button>
             </div>
@@ -158,7 +161,9 @@ export function ArchiveScreen() {
             else if (e.key === 'End') { e.preventDefault(); moveSelection(shown.length - 1); }
             else if (e.key === 'Enter' && shown[selected]) navigate({ screen: 'test', testId: shown[selected].id });
           }}>
-          {tests !== null && shown.length === 0 && <div className="empty">No test matches these filters.</div>}
+          {tests !== null && shown.length === 0 && (all.length === 0
+            ? <div className="empty">The archive is empty. Choose <b>Import files…</b> to add contractor reports (CSV, XLSX, LAS).</div>
+            : <div className="empty">No test matches these filters. <button type="button" className="btn link" onClick={() => { setFilter(EMPTY_FILTER); setTvdInputs((n) => n + 1); }}>Clear the filters</button></div>)}
           <div style={{ height: win.totalHeight, position: 'relative' }}>
             {shown.slice(win.start, win.end).map((t, i) => {
               const row = win.start + i;

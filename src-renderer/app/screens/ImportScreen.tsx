@@ -4,7 +4,7 @@ import type { PickedFile } from '../../bridge/types';
 import { isEngineError } from '../../engine/errors';
 import { TEST_TYPES, type ColumnMapping, type TestType } from '../../engine/record';
 import { useApp } from '../context';
-import { formatNumber, formatQuantity, unitLabel } from '../format/units';
+import { displayDigits, formatNumber, formatQuantity, unitLabel } from '../format/units';
 import {
   applySavedMapping, columnOverrides, EDITABLE_METADATA, mappingChanged, metadataOverrides, metadataText,
   summariseOutcomes, type BatchSummary, type MetadataEdits,
@@ -202,7 +202,7 @@ export function ImportScreen() {
           <div className="panel tight stack">
             <div className="row"><h2 style={{ margin: 0 }}>Files ({items.length})</h2><span className="spacer" />
               <button className="btn primary" type="button" onClick={() => void runImport()} disabled={busy || pending === 0} data-testid="import-run">
-                Import {pending} file{pending === 1 ? '' : 's'}
+                {pending === 0 ? 'Nothing left to import' : `Import ${pending} file${pending === 1 ? '' : 's'}`}
               </button>
             </div>
             <div className="file-list" role="listbox" aria-label="Files">
@@ -290,12 +290,12 @@ function FileConfirmation({ item, units, onChange, onRecheck }: {
           </div>
           {p.parsed && (
             <>
-              <h3>The same rows as they will be stored (converted)</h3>
+              <h3>The same rows as they will be stored (converted; shown with extra decimals to check the units)</h3>
               <table className="plain">
                 <thead><tr><th className="num">Time (s)</th><th className="num">Pressure at gauge</th><th className="num">Rate</th><th className="num">Volume</th></tr></thead>
                 <tbody>{p.parsed.firstRows.map((r, k) => (
-                  <tr key={k}><td className="num">{formatNumber(r[0], 1)}</td><td className="num">{formatQuantity(units, 'pressure', r[1])}</td>
-                    <td className="num">{formatQuantity(units, 'rate', r[2])}</td><td className="num">{formatQuantity(units, 'volume', r[3])}</td></tr>
+                  <tr key={k}><td className="num">{formatNumber(r[0], 1)}</td><td className="num">{formatQuantity(units, 'pressure', r[1], { digits: displayDigits(units, 'pressure') + 2 })}</td>
+                    <td className="num">{formatQuantity(units, 'rate', r[2], { digits: displayDigits(units, 'rate') + 1 })}</td><td className="num">{formatQuantity(units, 'volume', r[3], { digits: displayDigits(units, 'volume') + 1 })}</td></tr>
                 ))}</tbody>
               </table>
             </>

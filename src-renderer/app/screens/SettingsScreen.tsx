@@ -5,6 +5,7 @@ import { DEFAULT_LIMITS } from '../../engine/quality/limits';
 import { useApp } from '../context';
 import { Dialog, ReasonDialog } from '../components/Dialog';
 import { formatLimit, formatLimitNumber, limitUnitLabel } from '../format/limitDisplay';
+import { messageWords } from '../format/methodWords';
 import { limitDraftChanges } from '../state/limitDraft';
 import { criterionName } from './test/QualityPanel';
 
@@ -109,7 +110,7 @@ export function SettingsScreen() {
                     <span className="hint" style={{ display: 'inline-block', minWidth: '4.5em', textAlign: 'left', paddingLeft: 4 }}>{unit}</span>
                     {error && <div className="error-text" style={{ whiteSpace: 'normal' }} id={`limit-error-${l.key}`} data-testid={`limit-error-${l.key}`}>{error}</div>}
                   </td>
-                  <td className="hint">{l.rationale}</td>
+                  <td className="hint">{messageWords(l.rationale)}</td>
                 </tr>
               );
             })}

@@ -1,7 +1,7 @@
 import type { ImportOutcome, SavedMapping } from '../../archive/api';
 import type { ColumnMapping, TestMetadata, TestType } from '../../engine/record';
 import type { UnitSystem } from '../../engine/units/unitSystem';
-import { fromDisplay, toDisplay, type DisplayQuantity } from '../format/units';
+import { displayDigits, fromDisplay, toDisplay, type DisplayQuantity } from '../format/units';
 
 /** The metadata fields the confirmation lets the engineer correct, with their display quantity. */
 export const EDITABLE_METADATA: { key: keyof TestMetadata; label: string; quantity?: DisplayQuantity }[] = [
@@ -24,8 +24,10 @@ export function metadataText(metadata: TestMetadata, key: keyof TestMetadata, qu
   const v = metadata[key];
   if (v === undefined || v === null) return '';
   if (quantity && typeof v === 'number') {
+    // Shown to one decimal more than the screens use (small values to 4 significant digits);
+    // an untouched field keeps the file's exact value, so this rounding is display only.
     const d = toDisplay(units, quantity, v);
-    return String(Number(d.toPrecision(6)));
+    return String(Math.abs(d) < 1 ? Number(d.toPrecision(4)) : Number(d.toFixed(displayDigits(units, quantity) + 1)));
   }
   return String(v);
 }

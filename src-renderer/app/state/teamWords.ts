@@ -82,7 +82,7 @@ export function conflictChoices(conflict: TeamConflict): { keep: string; label: 
  */
 export function plainSummary(summary: string, labelOf: (testId: string) => string | null): string {
   return summary
-    .replace(/\b(test) ([A-Za-z0-9_.:#@-]+?)(?=[,;)'\s]|'s|$)/g, (whole, _word: string, id: string) => labelOf(id) ?? whole)
+    .replace(/\b(test) ([A-Za-z0-9_.:#@-]+?)(?=[,;)'\s]|'s|:\s|:$|$)/g, (whole, _word: string, id: string) => labelOf(id) ?? whole)
     .replace(/\bthe (\w+) pick\b/g, (whole, kind: string) => {
       if (kind === 'isip') return 'the ISIP pick';
       const name = (PICK_STYLE as Record<string, { name: string } | undefined>)[kind]?.name;

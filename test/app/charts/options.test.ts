@@ -3,7 +3,7 @@ import { analyzeRecord } from '../../../src-renderer/engine/analyze';
 import { generateSyntheticTest } from '../../../src-renderer/engine/synthetic/generate';
 import type { CycleAnalysis } from '../../../src-renderer/engine/result';
 import {
-  cyclesOverlayOption, indexRange, parsePickKey, pickKey, placedPicks, stepRateChartOption, timeChartOption, volumeChartOption,
+  cyclesOverlayOption, indexRange, onlyNoiseBelowZero, parsePickKey, pickKey, placedPicks, stepRateChartOption, timeChartOption, volumeChartOption,
 } from '../../../src-renderer/app/charts/options';
 import { PICK_STYLE } from '../../../src-renderer/app/charts/style';
 
@@ -32,6 +32,15 @@ describe('chart options', () => {
     expect(peakDrawn).toBeCloseTo(peakTrue, 6);
     const rate = seriesOf(option).find((s) => s.id === 'rate')!;
     expect(rate.yAxisIndex).toBe(1);
+  });
+
+  it('should start the pressure axis at zero when the only values below zero are gauge noise', () => {
+    // Synthetic series whose truth is set here: a surface gauge reads about -0.003 MPa at rest (noise),
+    // against a 13 MPa peak; a record that truly goes 20 % below zero keeps its negative axis.
+    expect(onlyNoiseBelowZero([Float64Array.from([-3e3, 0, 13e6])])).toBe(true);
+    expect(onlyNoiseBelowZero([Float64Array.from([0, 13e6]), Float64Array.from([-1e3, 5e6])])).toBe(true);
+    expect(onlyNoiseBelowZero([Float64Array.from([-2.6e6, 13e6])])).toBe(false);
+    expect(onlyNoiseBelowZero([Float64Array.from([1e6, 13e6])])).toBe(false);
   });
 
   it('should give every pick kind its own marker shape, at the pick position', () => {

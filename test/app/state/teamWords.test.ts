@@ -72,7 +72,8 @@ describe('plainSummary', () => {
   it('should replace known test ids by the test and pick kinds by their names', () => {
     expect(plainSummary('moved the leakOff pick of test t7, cycle 1 (tangent)', label)).toBe('moved the leak-off point pick of HF-1 XLOT at 2,600 m TVD, cycle 1 (tangent)');
     expect(plainSummary('moved the isip pick of test t7, cycle 2 (late)', label)).toBe('moved the ISIP pick of HF-1 XLOT at 2,600 m TVD, cycle 2 (late)');
-    expect(plainSummary('signed off test t7 with grade B', label)).toBe('signed off HF-1 XLOT at 2,600 m TVD with grade B');
+    expect(plainSummary('signed off test t7 with grade B', label)).toBe('signed off HF-1 XLOT at 2,600 m TVD with grade B');    // A comment summary puts a colon right after the id (synthetic summary, expected words set here).
+    expect(plainSummary('commented on test t7: Looking at the closure picks.', label)).toBe('commented on HF-1 XLOT at 2,600 m TVD: Looking at the closure picks.');
   });
 
   it('should leave unknown ids and words as they are', () => {

@@ -11,6 +11,7 @@ import { ChartView } from '../../components/ChartView';
 import { GradeBadge, SafetyNote, StateBadge } from '../../components/Badges';
 import { PICK_STYLE } from '../../charts/style';
 import { placedPicks, timeChartOption } from '../../charts/options';
+import { messageWords, methodWords, stressMethodWords } from '../../format/methodWords';
 import { formatQuantity, type UnitSystem } from '../../format/units';
 import { describeEvent, eventTime } from '../../state/logWords';
 import { criterionCells, criterionName } from '../test/QualityPanel';
@@ -63,7 +64,7 @@ function TestSection({ detail, units }: { detail: TestDetail; units: UnitSystem 
             return (
               <tr key={`${c.cycle.index}-${p!.kind}`}>
                 <td>{c.cycle.index}</td><td>{PICK_STYLE[p!.kind].name}</td><td>{q(p!.pressure)}</td>
-                <td>{formatQuantity(units, 'time', p!.time)}</td><td>{p!.method}</td>
+                <td>{formatQuantity(units, 'time', p!.time)}</td><td title={p!.method}>{p!.manual ? 'set by hand' : methodWords(p!.method)}</td>
                 <td>{hand ? `${hand.author}, ${eventTime(hand.time)}: ${hand.reason}` : p!.manual ? p!.reason ?? 'yes' : '–'}</td>
               </tr>
             );
@@ -73,10 +74,10 @@ function TestSection({ detail, units }: { detail: TestDetail; units: UnitSystem 
       <h3>Stress estimates</h3>
       <table>
         <tbody>
-          <tr><th>Shmin</th><td>{st.shmin ? `${q(st.shmin.value)} (${st.shmin.kind}, from ${st.shmin.from}, cycle ${st.shmin.cycle})` : 'none'}</td></tr>
-          <tr><th>SHmax</th><td>{st.shmax ? `${st.shmax.value !== null ? `${q(st.shmax.value)} (${st.shmax.method}); ` : ''}frictional bounds ${q(st.shmax.low)} – ${q(st.shmax.high)} (μ ${st.frictionCoefficient})` : 'none'}</td></tr>
-          <tr><th>Sv</th><td>{q(st.sv.value)} ({st.sv.source})</td></tr>
-          <tr><th>Pp</th><td>{q(st.pp.value)} ({st.pp.source})</td></tr>
+          <tr><th>Shmin</th><td>{st.shmin ? `${q(st.shmin.value)} (${st.shmin.kind.replace('-', ' ')}, from ${st.shmin.from}, cycle ${st.shmin.cycle})` : 'none'}</td></tr>
+          <tr><th>SHmax</th><td>{st.shmax ? `${st.shmax.value !== null ? `${q(st.shmax.value)} (${stressMethodWords(st.shmax.method)}); ` : ''}frictional bounds ${q(st.shmax.low)} – ${q(st.shmax.high)} (μ ${st.frictionCoefficient})` : 'none'}</td></tr>
+          <tr><th>Sv</th><td>{q(st.sv.value)} ({st.sv.source.replace('-', ' ')})</td></tr>
+          <tr><th>Pp</th><td>{q(st.pp.value)} ({st.pp.source.replace('-', ' ')})</td></tr>
         </tbody>
       </table>
       {st.shmax && st.shmax.cautions.length > 0 && <ul>{st.shmax.cautions.map((c) => <li key={c} className="shmax-caution">{c}</li>)}</ul>}
@@ -90,7 +91,7 @@ function TestSection({ detail, units }: { detail: TestDetail; units: UnitSystem 
             return (
               <tr key={c.id} className={c.pass === false ? 'report-fail' : undefined}>
                 <td>{criterionName(c.id)} <span className="mono">({c.id})</span></td><td>{c.pass === true ? 'pass' : c.pass === false ? `fail (${c.severity})` : 'cannot judge'}</td>
-                <td>{cells.value}{cells.unit && c.value !== null ? ` ${cells.unit}` : ''}</td><td>{cells.limit}{cells.unit && c.limit !== null ? ` ${cells.unit}` : ''}</td><td>{c.message}</td>
+                <td>{cells.value}{cells.unit && c.value !== null ? ` ${cells.unit}` : ''}</td><td>{cells.limit}{cells.unit && c.limit !== null ? ` ${cells.unit}` : ''}</td><td>{messageWords(c.message)}</td>
               </tr>
             );
           })}

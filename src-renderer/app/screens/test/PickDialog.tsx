@@ -8,6 +8,7 @@ import { GradeBadge, PickMarker } from '../../components/Badges';
 import { PICK_STYLE } from '../../charts/style';
 import { useApp } from '../../context';
 import { formatQuantity, fromDisplay, toDisplay, unitLabel } from '../../format/units';
+import { methodWords } from '../../format/methodWords';
 import { manualPickAt, nearestIndex, pickRange, previewOptions, recordOfDetail } from '../../state/pickPlacement';
 
 export interface PickEditRequest {
@@ -95,7 +96,7 @@ export function PickDialog({ detail, request, units, limits, onSave, onClose }: 
         </div>
       ) : (
         <p><PickMarker kind={kind} />{PICK_STYLE[kind].name}, cycle {cycle}.{' '}
-          {current ? <>Now at {formatQuantity(units, 'pressure', current.pressure)}, {formatQuantity(units, 'time', current.time)} ({current.manual ? 'set by hand' : `automatic: ${current.method}`}).</> : 'The analysis has no such pick.'}</p>
+          {current ? <>Now at {formatQuantity(units, 'pressure', current.pressure)}, {formatQuantity(units, 'time', current.time)} ({current.manual ? 'set by hand' : `automatic: ${methodWords(current.method)}`}).</> : 'The analysis has no such pick.'}</p>
       )}
       {(detail.summary.state === 'accepted' || detail.summary.state === 'rejected') && (
         <div className="notice warn" data-testid="pick-reopens">This test is {detail.summary.state}. Changing a pick reopens its review; it will need a new sign-off.</div>

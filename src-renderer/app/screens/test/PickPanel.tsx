@@ -4,6 +4,7 @@ import { PickMarker } from '../../components/Badges';
 import { PICK_STYLE } from '../../charts/style';
 import { pickKey, type PlacedPick } from '../../charts/options';
 import { formatQuantity, unitLabel } from '../../format/units';
+import { methodWords } from '../../format/methodWords';
 
 export function PickPanel({ picks, units, selected, onSelect, onEdit, onAdd, onReset, canUndo, canRedo, onUndo, onRedo }: {
   picks: PlacedPick[]; units: UnitSystem; selected: string | null;
@@ -32,7 +33,7 @@ export function PickPanel({ picks, units, selected, onSelect, onEdit, onAdd, onR
                 style={selected === key ? { background: 'var(--accent-soft)' } : undefined} onClick={() => onSelect(key)}>
                 <td>
                   <PickMarker kind={p.kind} /><b>{PICK_STYLE[p.kind].short}</b> <span className="hint">cycle {p.cycle}</span>
-                  <div className="hint">{p.pick.manual ? <>by hand: {p.pick.reason}</> : p.pick.method}</div>
+                  <div className="hint" title={p.pick.manual ? undefined : p.pick.method}>{p.pick.manual ? <>by hand: {p.pick.reason}</> : methodWords(p.pick.method)}</div>
                 </td>
                 <td className="num">{formatQuantity(units, 'pressure', p.pick.pressure, { unit: false })}</td>
                 <td className="num">{formatQuantity(units, 'time', p.pick.time, { unit: false })}</td>

@@ -2,6 +2,7 @@ import type { CriterionResult, QualityResult } from '../../../engine/result';
 import { DEFAULT_LIMITS } from '../../../engine/quality/limits';
 import { CriterionVerdict, GradeBadge } from '../../components/Badges';
 import { GRADE_STYLE } from '../../charts/style';
+import { messageWords } from '../../format/methodWords';
 
 const CRITERION_NAMES: Record<string, string> = {
   'loading-linearity': 'Straight loading line',
@@ -96,7 +97,7 @@ export function QualityPanel({ quality, limits, preview }: { quality: QualityRes
             const cells = criterionCells(c, limits);
             return (
             <tr key={c.id} data-testid="criterion-row" data-criterion={c.id}>
-              <td><div>{criterionName(c.id)}{c.severity === 'major' ? '' : <span className="hint"> (minor)</span>}</div><div className="hint">{c.message}</div></td>
+              <td><div>{criterionName(c.id)}{c.severity === 'major' ? '' : <span className="hint"> (minor)</span>}</div><div className="hint">{messageWords(c.message)}</div></td>
               <td className="num" data-testid="criterion-value">{cells.value}{cells.unit && c.value !== null ? <span className="hint">{'\u00a0'}{cells.unit}</span> : null}</td>
               <td className="num" data-testid="criterion-limit">{cells.limit}{cells.unit && c.limit !== null ? <span className="hint">{'\u00a0'}{cells.unit}</span> : null}</td>
               <td><CriterionVerdict pass={c.pass} /></td>

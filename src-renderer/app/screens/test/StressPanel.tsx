@@ -2,6 +2,7 @@ import type { StressEstimates } from '../../../engine/result';
 import type { UnitSystem } from '../../../engine/units/unitSystem';
 import { equivalentMudDensity, formatQuantity, formatSignificant } from '../../format/units';
 import { PICK_STYLE } from '../../charts/style';
+import { stressMethodWords } from '../../format/methodWords';
 
 const SHMIN_KIND: Record<string, string> = { estimate: 'estimate', 'lower-bound': 'lower bound', 'upper-bound': 'upper bound' };
 const SOURCE: Record<string, string> = { given: 'given', file: 'from the file', 'default-gradient': 'default gradient' };
@@ -30,7 +31,7 @@ export function StressPanel({ stress, units, tvd }: { stress: StressEstimates; u
           <dt>SHmax bounds</dt>
           <dd data-testid="shmax-bounds">{formatQuantity(units, 'pressure', shmax.low)} to {formatQuantity(units, 'pressure', shmax.high)}
             <div className="hint">frictional limit, friction coefficient {stress.frictionCoefficient}</div></dd>
-          {shmax.value !== null && <><dt>SHmax (reopening)</dt><dd data-testid="shmax-value"><Value units={units} value={shmax.value} tvd={tvd} /><div className="hint">{shmax.method}</div></dd></>}
+          {shmax.value !== null && <><dt>SHmax (reopening)</dt><dd data-testid="shmax-value"><Value units={units} value={shmax.value} tvd={tvd} /><div className="hint">{stressMethodWords(shmax.method)}</div></dd></>}
         </>}
       </dl>
       {shmax && (shmax.detectability || cautions.length > 0) && (

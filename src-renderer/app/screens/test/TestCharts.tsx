@@ -117,10 +117,10 @@ export function TestCharts({ samples, downhole: headerDownhole, correction, type
   };
 
   const tabs: { id: Tab; label: string; show: boolean }[] = [
-    { id: 'volume', label: 'Pressure against volume', show: true },
+    { id: 'volume', label: 'Pressure–volume', show: true },
     { id: 'shutin', label: 'Shut-in diagnostics', show: shutInCycles.length > 0 },
     { id: 'steprate', label: 'Step rate', show: stepCycle !== null },
-    { id: 'overlay', label: 'All cycles overlaid', show: cycles.length > 0 },
+    { id: 'overlay', label: 'Cycles overlaid', show: cycles.length > 0 },
   ];
 
   return (
