@@ -6,7 +6,7 @@
  * export of the stress table. The logic lives in engine/model and engine/export; this
  * component only holds the choices and draws.
  */
-import { useMemo, useState } from 'react';
+import { useMemo, useState, type CSSProperties } from 'react';
 import { ChartView } from '../../components/ChartView';
 import { SafetyNote } from '../../components/Badges';
 import { fromDisplay, toDisplay, unitLabel, type UnitSystem } from '../../format/units';
@@ -68,6 +68,31 @@ const TREND_CHOICES: { id: TrendChoice; label: string }[] = [
   { id: 'formation', label: 'by formation' },
 ];
 
+/** Plain words for the marker shapes of the grades. */
+const SYMBOL_WORD: Record<string, string> = { circle: 'circle', rect: 'square', triangle: 'triangle', diamond: 'diamond', pin: 'pin' };
+
+/** Right-aligned, tabular figures for number cells. */
+const NUM: CSSProperties = { textAlign: 'right', fontVariantNumeric: 'tabular-nums', whiteSpace: 'nowrap' };
+
+/** A test's review state in plain words, capitalised. */
+function stateWords(state: string): string {
+  const words = state.replace(/[-_]/g, ' ');
+  return words.charAt(0).toUpperCase() + words.slice(1);
+}
+
+/** The caution naming the tests whose bound contradicts the trend (well, TVD, value). */
+function boundCaution(model: RegionalModel, units: UnitSystem): string | null {
+  const bad = model.tests.filter((t) => t.boundViolated && t.shmin && t.tvd !== null);
+  if (!bad.length) return null;
+  const list = bad.map((t) => `${t.well} at TVD ${fmt(toDisplay(units, 'depth', t.tvd!), 0)} ${unitLabel(units, 'depth')}: ${t.shmin!.kind === 'lower-bound' ? 'lower bound' : 'upper bound'} ${fmt(toDisplay(units, 'pressure', t.shmin!.value), units === 'si' ? 2 : 0)} ${unitLabel(units, 'pressure')} (${t.file})`);
+  return `The trend contradicts ${bad.length === 1 ? 'a bound' : `${bad.length} bounds`} (a lower bound above the trend, or an upper bound below it): ${list.join('; ')}.`;
+}
+
+/** A number with thousands separators and a fixed count of decimals. */
+function fmt(v: number, decimals: number): string {
+  return v.toLocaleString('en-US', { minimumFractionDigits: decimals, maximumFractionDigits: decimals });
+}
+
 const CSV_MIME = 'text/csv';
 const XLSX_MIME = 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet';
 const ONE_PSI_PER_FT = 22_620.6;
@@ -106,7 +131,7 @@ export function StressModelScreen(props: StressModelScreenProps) {
   const activeTrend: TrendChoice = trendChoice === 'formation' && !formationsOffered ? 'one' : trendChoice;
   const [busy, setBusy] = useState(false);
 
-  const built = useMemo((): { model: RegionalModel; rows: StressTableRow[] } | { error: string } | null => {
+  const built = useMemo((): { model: RegionalModel; rows: StressTableRow[]; mudline: number } | { error: string } | null => {
     if (!activeField) return null;
     try {
       const wd = numberInput(waterDepth) ?? (single?.waterDepth !== undefined ? toDisplay(units, 'depth', single.waterDepth) : 0);
@@ -135,7 +160,7 @@ export function StressModelScreen(props: StressModelScreenProps) {
       const deepest = depths.length ? Math.max(...depths) : 3000;
       const to = Math.max(stepM * 2, Math.ceil((deepest * 1.1) / stepM) * stepM);
       const rows = stressTable(model, { from: stepM, to, step: stepM, well: single?.name, mdAtTvd: path ? (z) => measuredDepthAtTvd(path, z) : undefined });
-      return { model, rows };
+      return { model, rows, mudline: overburden.rigFloorElevation + overburden.waterDepth };
     } catch (e) {
       return { error: e instanceof Error ? e.message : String(e) };
     }
@@ -179,7 +204,7 @@ export function StressModelScreen(props: StressModelScreenProps) {
     }
   }
 
-  const option = useMemo(() => (built && 'model' in built ? depthPlotOption(built.model, built.rows, { mode, units, showUnaccepted, showReferences }) : null), [built, mode, units, showUnaccepted, showReferences]);
+  const option = useMemo(() => (built && 'model' in built ? depthPlotOption(built.model, built.rows, { mode, units, showUnaccepted, showReferences, mudline: built.mudline }) : null), [built, mode, units, showUnaccepted, showReferences]);
 
   async function exportTable(format: 'csv' | 'xlsx') {
     if (!built || !('model' in built)) return;
@@ -210,7 +235,9 @@ export function StressModelScreen(props: StressModelScreenProps) {
   const hiddenCount = model ? model.tests.filter((t) => t.field === activeField && chosenWells.includes(t.well) && t.state !== 'accepted').length : 0;
   const pu = unitLabel(units, 'pressure');
   const hasMd = !!built && 'rows' in built && built.rows.some((r) => r.md !== null);
-  const p = (v: number | null) => (v === null ? '–' : toDisplay(units, 'pressure', v).toFixed(units === 'si' ? 2 : 0));
+  const p = (v: number | null) => (v === null ? '–' : fmt(toDisplay(units, 'pressure', v), units === 'si' ? 2 : 0));
+  const d = (v: number | null) => (v === null ? '–' : fmt(toDisplay(units, 'depth', v), 0));
+  const boundNote = model ? boundCaution(model, units) : null;
 
   return (
     <div className="page" data-testid="screen-model">
@@ -263,15 +290,15 @@ export function StressModelScreen(props: StressModelScreenProps) {
           <div className="row">
             {densityLog
               ? <span data-testid="model-density-log">Sv from density log {densityLog.fileName} <button type="button" className="btn small" onClick={() => setDensityLog(null)}>Use a gradient</button></span>
-              : <label>Sv gradient [{unitLabel(units, 'gradient')}] <input size={6} value={svGradient} onChange={(e) => setSvGradient(e.target.value)} data-testid="model-sv-gradient" /></label>}
+              : <label>Sv gradient ({unitLabel(units, 'gradient')}) <input size={6} value={svGradient} onChange={(e) => setSvGradient(e.target.value)} data-testid="model-sv-gradient" /></label>}
             {openFiles && !densityLog && <button type="button" className="btn small" onClick={() => void loadDensityLog()} data-testid="model-load-density">Sv from density log (LAS)…</button>}
             {ppPoints && <span data-testid="model-pp-points">Pp through {ppPoints.points.length} measurements from {ppPoints.file} <button type="button" className="btn small" onClick={() => setPpPoints(null)}>Use a gradient</button></span>}
             {openFiles && !ppPoints && <button type="button" className="btn small" onClick={() => void loadPorePressurePoints()} data-testid="model-load-pp-points">Pp from measurements (CSV)…</button>}
-            <label>{ppPoints ? 'Pp gradient below the deepest point' : 'Pp gradient'} [{unitLabel(units, 'gradient')}] <input size={6} value={ppGradient} onChange={(e) => setPpGradient(e.target.value)} data-testid="model-pp-gradient" /></label>
+            <label>{ppPoints ? 'Pp gradient below the deepest point' : 'Pp gradient'} ({unitLabel(units, 'gradient')}) <input size={6} value={ppGradient} onChange={(e) => setPpGradient(e.target.value)} data-testid="model-pp-gradient" /></label>
             <label>Friction μ <input size={4} value={friction} onChange={(e) => setFriction(e.target.value)} data-testid="model-friction" /></label>
-            <label>Water depth [{unitLabel(units, 'depth')}] <input size={6} value={waterDepth} placeholder={single?.waterDepth !== undefined ? toDisplay(units, 'depth', single.waterDepth).toFixed(0) : '0'} onChange={(e) => setWaterDepth(e.target.value)} /></label>
-            <label>Rig floor [{unitLabel(units, 'depth')}] <input size={6} value={rigFloor} placeholder={single?.rigFloorElevation !== undefined ? toDisplay(units, 'depth', single.rigFloorElevation).toFixed(0) : '0'} onChange={(e) => setRigFloor(e.target.value)} /></label>
-            <label>Table step [{unitLabel(units, 'depth')}] <input size={5} value={step} onChange={(e) => setStep(e.target.value)} data-testid="model-step" /></label>
+            <label>Water depth ({unitLabel(units, 'depth')}) <input size={6} value={waterDepth} placeholder={single?.waterDepth !== undefined ? toDisplay(units, 'depth', single.waterDepth).toFixed(0) : '0'} onChange={(e) => setWaterDepth(e.target.value)} /></label>
+            <label>Rig floor ({unitLabel(units, 'depth')}) <input size={6} value={rigFloor} placeholder={single?.rigFloorElevation !== undefined ? toDisplay(units, 'depth', single.rigFloorElevation).toFixed(0) : '0'} onChange={(e) => setRigFloor(e.target.value)} /></label>
+            <label>Table step ({unitLabel(units, 'depth')}) <input size={5} value={step} onChange={(e) => setStep(e.target.value)} data-testid="model-step" /></label>
             {single && (single.survey && single.survey.length > 1
               ? <span className="hint" data-testid="model-survey">MD of {single.name} from its survey ({single.survey.length} stations)</span>
               : openFiles && saveWellSurvey && single.id !== undefined
@@ -284,7 +311,7 @@ export function StressModelScreen(props: StressModelScreenProps) {
               <button key={c.id} type="button" className="tab" aria-selected={activeTrend === c.id} data-testid={`model-trend-${c.id}`} onClick={() => setTrendChoice(c.id)}>{c.label}</button>
             ))}
             {activeTrend === 'breaks' && (
-              <label title="TVDs where the trend is split into separate lines, e.g. 1500, 2500">Trend breaks [{unitLabel(units, 'depth')}] <input size={10} value={breaks} placeholder="none" onChange={(e) => setBreaks(e.target.value)} data-testid="model-breaks" /></label>
+              <label title="TVDs where the trend is split into separate lines, e.g. 1500, 2500">Trend breaks ({unitLabel(units, 'depth')}) <input size={10} value={breaks} placeholder="none" onChange={(e) => setBreaks(e.target.value)} data-testid="model-breaks" /></label>
             )}
             {activeTrend === 'formation' && <span className="hint" data-testid="model-trend-formation-note">One line per formation named in the files; tests without a formation are fitted together as &quot;unnamed&quot;.</span>}
           </div>
@@ -302,26 +329,26 @@ export function StressModelScreen(props: StressModelScreenProps) {
             {namedLines ? null : seg
               ? <span>Shmin = {toDisplay(units, 'pressure', seg.intercept).toFixed(units === 'si' ? 2 : 0)} {unitLabel(units, 'pressure')} + {toDisplay(units, 'gradient', seg.gradient).toFixed(units === 'si' ? 2 : 3)} {unitLabel(units, 'gradient')} × TVD · R² {seg.r2.toFixed(3)} · n {seg.n} · {(model.trend.confidence * 100).toFixed(0)} % bands</span>
               : <span>No Shmin trend: {model.trend.provenance.filter((x) => x.startsWith('No trend')).join(' ') || 'no accepted tests with a Shmin value.'}</span>}
-            {model.cautions.slice(1).map((c) => <p key={c} className="shmax-caution">{c}</p>)}
+            {model.cautions.slice(1).map((c) => <p key={c} className="shmax-caution">{c.startsWith('The trend contradicts') && boundNote ? boundNote : c}</p>)}
           </div>
           <ChartView option={option} label="Depth plot of the regional stress model" testId="model-depth-plot" className="chart-box depth-plot"
             onPickClick={(id) => onOpenTest(id)} />
           <p className="hint">
-            Marker shape = grade ({Object.entries(GRADE_SYMBOL).map(([g, s]) => `${g} ${s}`).join(', ')}); colour = well; arrow = FIT lower bound (never fitted);
+            Marker shape = grade ({Object.entries(GRADE_SYMBOL).map(([g, s]) => `${g} ${SYMBOL_WORD[s] ?? s}`).join(', ')}); colour = well; arrow = FIT lower bound (never fitted);
             star = SHmax from reopening (indicative); hollow grey = not accepted; hollow blue circle = Pp measurement; dark ring = outlier of the trend. Click a point to open its test.
           </p>
           <div className="panel tight">
             <table className="grid-table" data-testid="model-tests">
-              <thead><tr><th>Well</th><th>File</th><th>TVD [{unitLabel(units, 'depth')}]</th><th>Shmin [{unitLabel(units, 'pressure')}]</th>{showFormation && <th>Formation</th>}<th>Grade</th><th>State</th><th>Signed off by</th><th>In fit</th></tr></thead>
+              <thead><tr><th>Well</th><th>File</th><th style={NUM}>TVD ({unitLabel(units, 'depth')})</th><th style={NUM}>Shmin ({unitLabel(units, 'pressure')})</th>{showFormation && <th>Formation</th>}<th>Grade</th><th>State</th><th>Signed off by</th><th>In fit</th></tr></thead>
               <tbody>
                 {shownTests.map((t) => (
                   <tr key={t.testId} data-testid="model-test-row">
                     <td>{t.well}</td>
                     <td><button type="button" className="btn link" onClick={() => onOpenTest(t.testId)}>{t.file}</button></td>
-                    <td>{t.tvd === null ? '–' : toDisplay(units, 'depth', t.tvd).toFixed(0)}</td>
-                    <td>{p(t.shmin?.value ?? null)}{t.shmin && t.shmin.kind !== 'estimate' ? ` (${t.shmin.kind})` : ''}</td>
+                    <td style={NUM}>{d(t.tvd)}</td>
+                    <td style={NUM}>{t.shmin && t.shmin.kind !== 'estimate' ? <span className="hint">{t.shmin.kind.replace('-', ' ')} </span> : null}{p(t.shmin?.value ?? null)}</td>
                     {showFormation && <td>{t.formation ?? '–'}</td>}
-                    <td>{t.grade}</td><td>{t.state}</td><td>{t.state === 'accepted' ? t.reviewer ?? '–' : '–'}</td>
+                    <td>{t.grade}</td><td>{stateWords(t.state)}</td><td>{t.state === 'accepted' ? t.reviewer ?? '–' : '–'}</td>
                     <td>{t.used ? (t.outlier ? 'yes, outlier' : 'yes') : `no${t.reason ? `: ${t.reason}` : t.role === 'lower-bound' ? ': lower bound' : ''}`}</td>
                   </tr>
                 ))}
@@ -331,10 +358,10 @@ export function StressModelScreen(props: StressModelScreenProps) {
           <details className="panel tight">
             <summary>Stress table ({built && 'rows' in built ? built.rows.length : 0} rows) and provenance</summary>
             <table className="grid-table" data-testid="model-table">
-              <thead><tr><th>TVD [{unitLabel(units, 'depth')}]</th>{hasMd && <th>MD [{unitLabel(units, 'depth')}]</th>}<th>Pp [{pu}]</th><th>Shmin [{pu}]</th><th>Shmin low–high [{pu}]</th><th>SHmax high [{pu}]</th><th>Sv [{pu}]</th><th>Regime</th>{namedLines && <th>Trend line</th>}</tr></thead>
+              <thead><tr><th style={NUM}>TVD ({unitLabel(units, 'depth')})</th>{hasMd && <th style={NUM}>MD ({unitLabel(units, 'depth')})</th>}<th style={NUM}>Pp ({pu})</th><th style={NUM}>Shmin ({pu})</th><th style={NUM}>Shmin low–high ({pu})</th><th style={NUM}>SHmax high ({pu})</th><th style={NUM}>Sv ({pu})</th><th>Regime</th>{namedLines && <th>Trend line</th>}</tr></thead>
               <tbody>
                 {built && 'rows' in built && built.rows.map((r) => (
-                  <tr key={r.tvd}><td>{toDisplay(units, 'depth', r.tvd).toFixed(0)}</td>{hasMd && <td>{r.md === null ? '–' : toDisplay(units, 'depth', r.md).toFixed(0)}</td>}<td>{p(r.pp)}</td><td>{p(r.shmin)}</td><td>{p(r.shminLow)}–{p(r.shminHigh)}</td><td>{p(r.shmaxHigh)}</td><td>{p(r.sv)}</td><td>{r.regime ?? '–'}</td>{namedLines && <td>{r.segment ?? '–'}</td>}</tr>
+                  <tr key={r.tvd}><td style={NUM}>{d(r.tvd)}</td>{hasMd && <td style={NUM}>{d(r.md)}</td>}<td style={NUM}>{p(r.pp)}</td><td style={NUM}>{p(r.shmin)}</td><td style={NUM}>{p(r.shminLow)}–{p(r.shminHigh)}</td><td style={NUM}>{p(r.shmaxHigh)}</td><td style={NUM}>{p(r.sv)}</td><td>{r.regime ?? '–'}</td>{namedLines && <td>{r.segment ?? '–'}</td>}</tr>
                 ))}
               </tbody>
             </table>

@@ -25,14 +25,14 @@ export type DepthAxisMode = 'pressure' | 'gradient' | 'emw';
 
 /** Line styles of the model curves. */
 export const CURVE_STYLE = {
-  sv: { color: '#1a1a1a', dash: 'solid' as const, width: 2.5, name: 'Sv (vertical stress)' },
-  pp: { color: '#0072B2', dash: 'dashed' as const, width: 2, name: 'Pp (pore pressure)' },
-  shmin: { color: '#D55E00', dash: 'solid' as const, width: 2.5, name: 'Shmin trend' },
-  confidence: { color: '#D55E00', dash: [6, 4] as number[], width: 1.2, name: 'Shmin trend confidence band' },
-  prediction: { color: '#D55E00', dash: 'dotted' as const, width: 1.2, name: 'Shmin prediction band' },
-  shmaxHigh: { color: '#009E73', dash: [10, 4, 2, 4] as number[], width: 2, name: 'SHmax upper bound (frictional limit)' },
-  breckels: { color: '#7a7a7a', dash: [2, 3] as number[], width: 1.2, name: 'Breckels & van Eekelen 1982 (reference)' },
-  eaton: { color: '#7a7a7a', dash: [8, 3] as number[], width: 1.2, name: 'Eaton 1969, ν 0.25 (reference)' },
+  sv: { color: '#1a1a1a', dash: 'solid' as const, width: 2.5, name: 'Sv (vertical stress)', legend: 'Sv' },
+  pp: { color: '#0072B2', dash: 'dashed' as const, width: 2, name: 'Pp (pore pressure)', legend: 'Pp' },
+  shmin: { color: '#D55E00', dash: 'solid' as const, width: 2.5, name: 'Shmin trend', legend: 'Shmin trend' },
+  confidence: { color: '#D55E00', dash: [6, 4] as number[], width: 1.2, name: 'Shmin trend confidence band', legend: 'Trend confidence' },
+  prediction: { color: '#D55E00', dash: 'dotted' as const, width: 1.2, name: 'Shmin prediction band', legend: 'Shmin prediction' },
+  shmaxHigh: { color: '#009E73', dash: [10, 4, 2, 4] as number[], width: 2, name: 'SHmax upper bound (frictional limit)', legend: 'SHmax frictional limit' },
+  breckels: { color: '#7a7a7a', dash: [2, 3] as number[], width: 1.2, name: 'Breckels & van Eekelen 1982 (reference)', legend: 'Breckels & van Eekelen' },
+  eaton: { color: '#7a7a7a', dash: [8, 3] as number[], width: 1.2, name: 'Eaton 1969, ν 0.25 (reference)', legend: 'Eaton (ν 0.25)' },
 };
 
 /**
@@ -78,6 +78,45 @@ export interface DepthPlotView {
   showUnaccepted: boolean;
   /** Draw the published correlations (Breckels & van Eekelen, Eaton) for comparison. */
   showReferences?: boolean;
+  /** TVD of the mudline (rig floor elevation plus water depth), m: gradient and EMW curves start below it (P / TVD is meaningless above). */
+  mudline?: number;
+}
+
+/**
+ * The depth range over which the Shmin trend is drawn: solid over the fitted tests' TVDs,
+ * extrapolated (dashed) no shallower than one table step above the shallowest test and no
+ * deeper than the table. Null when no test was fitted.
+ */
+export function trendDepthRange(model: RegionalModel, rows: StressTableRow[]): { top: number; bottom: number; from: number; to: number } | null {
+  const depths = model.tests.filter((t) => t.used && t.tvd !== null && t.tvd > 0).map((t) => t.tvd!);
+  if (!depths.length || !rows.length) return null;
+  const top = Math.min(...depths);
+  const bottom = Math.max(...depths);
+  const step = rows.length > 1 ? rows[1].tvd - rows[0].tvd : rows[0].tvd;
+  const from = Math.max(rows[0].tvd, top - step);
+  const to = Math.max(bottom, rows[rows.length - 1].tvd);
+  return { top, bottom, from: Math.min(from, top), to };
+}
+
+/** The rows between two TVDs, with rows interpolated linearly at both ends (the trend is linear in TVD). */
+function rowsBetween(rows: StressTableRow[], from: number, to: number): StressTableRow[] {
+  const at = (z: number): StressTableRow | null => {
+    const i = rows.findIndex((r) => r.tvd >= z);
+    if (i < 0) return null;
+    if (rows[i].tvd === z || i === 0) return rows[i].tvd === z ? rows[i] : null;
+    const a = rows[i - 1];
+    const b = rows[i];
+    const f = (z - a.tvd) / (b.tvd - a.tvd);
+    const mix = (x: number | null, y: number | null) => (x === null || y === null ? null : x + (y - x) * f);
+    return {
+      ...a, tvd: z, md: mix(a.md, b.md), sv: mix(a.sv, b.sv)!, pp: mix(a.pp, b.pp)!, shmin: mix(a.shmin, b.shmin), shminLow: mix(a.shminLow, b.shminLow), shminHigh: mix(a.shminHigh, b.shminHigh),
+      shminConfidenceLow: mix(a.shminConfidenceLow, b.shminConfidenceLow), shminConfidenceHigh: mix(a.shminConfidenceHigh, b.shminConfidenceHigh), shmaxHigh: mix(a.shmaxHigh, b.shmaxHigh),
+    } as StressTableRow;
+  };
+  const inner = rows.filter((r) => r.tvd > from && r.tvd < to);
+  const first = at(from);
+  const last = at(to);
+  return [...(first ? [first] : []), ...inner, ...(last ? [last] : [])];
 }
 
 /** Axis units and a converter from (pressure Pa, TVD m) to the x value shown. */
@@ -102,7 +141,7 @@ export function wellColors(model: RegionalModel): Map<string, string> {
   return new Map(wells.map((w, i) => [w, WELL_COLORS[i % WELL_COLORS.length]]));
 }
 
-function curve(id: string, rows: StressTableRow[], pick: (r: StressTableRow) => number | null, style: { color: string; dash: 'solid' | 'dashed' | 'dotted' | number[]; width: number; name: string }, toX: (p: number, z: number) => number | null, toDepth: (z: number) => number): LineSeriesOption {
+function curve(id: string, rows: StressTableRow[], pick: (r: StressTableRow) => number | null, style: { color: string; dash: 'solid' | 'dashed' | 'dotted' | number[]; width: number; name: string; legend?: string }, toX: (p: number, z: number) => number | null, toDepth: (z: number) => number): LineSeriesOption {
   const data: (number | null)[][] = [];
   for (const r of rows) {
     const p = pick(r);
@@ -110,7 +149,7 @@ function curve(id: string, rows: StressTableRow[], pick: (r: StressTableRow) => 
     data.push(x === null ? [null, toDepth(r.tvd)] : [x, toDepth(r.tvd)]);
   }
   return {
-    id, name: style.name, type: 'line', data: data as LineSeriesOption['data'], symbol: 'none', showSymbol: false, connectNulls: false,
+    id, name: style.legend ?? style.name, type: 'line', data: data as LineSeriesOption['data'], symbol: 'none', showSymbol: false, connectNulls: false,
     lineStyle: { color: style.color, type: style.dash as 'solid', width: style.width }, itemStyle: { color: style.color },
     emphasis: { disabled: true }, z: 2,
   };
@@ -160,8 +199,18 @@ export function shminTrendCurves(model: RegionalModel, rows: StressTableRow[], t
   return segments.map((sg, i) => {
     const style = SEGMENT_STYLES[i % SEGMENT_STYLES.length];
     return curve(`shmin-line-${i}`, rows, (r) => (r.segment === sg.name ? r.shmin : null),
-      { ...CURVE_STYLE.shmin, color: style.color, dash: style.dash, name: `${CURVE_STYLE.shmin.name}: ${sg.name}` }, toX, toDepth);
+      { ...CURVE_STYLE.shmin, color: style.color, dash: style.dash, name: `${CURVE_STYLE.shmin.name}: ${sg.name}`, legend: `${CURVE_STYLE.shmin.name}: ${sg.name}` }, toX, toDepth);
   });
+}
+
+/** The Shmin trend outside the tested depths (thin, dashed, one series for both ends). */
+function extrapolatedTrend(model: RegionalModel, rows: StressTableRow[], range: { top: number; bottom: number; from: number; to: number }, toX: (p: number, z: number) => number | null, toDepth: (z: number) => number): LineSeriesOption {
+  const above = range.from < range.top ? rowsBetween(rows, range.from, range.top) : [];
+  const below = range.to > range.bottom ? rowsBetween(rows, range.bottom, range.to) : [];
+  const style = { color: CURVE_STYLE.shmin.color, dash: [3, 4] as number[], width: 1.5, name: 'Shmin trend, extrapolated' };
+  const part = (rs: StressTableRow[]) => curve('x', rs, (r) => r.shmin, style, toX, toDepth).data as unknown[];
+  const data = [...part(above), ...(above.length && below.length ? [[null, null]] : []), ...part(below)];
+  return { ...curve('shmin-extrapolated', [], () => null, style, toX, toDepth), data: data as LineSeriesOption['data'], z: 1 };
 }
 
 /**
@@ -177,20 +226,28 @@ export function depthPlotOption(model: RegionalModel, rows: StressTableRow[], vi
   const axis = axisUnits(view);
   const toDepth = (z: number) => fromSI(z, axis.depth, 'length');
   const colors = wellColors(model);
+  // Gradient and EMW divide by TVD: draw them only below the mudline (and the first table row).
+  const mudline = view.mode === 'pressure' ? -Infinity : view.mudline ?? 0;
+  const below = rows.filter((r) => r.tvd > mudline);
+  // The trend, its bands and the frictional limit (which uses the trend) over the tested depths, extrapolated dashed outside them.
+  const range = trendDepthRange(model, below);
+  const tested = range ? rowsBetween(below, range.top, range.bottom) : below;
+  const banded = range ? rowsBetween(below, range.from, range.to) : below;
   const series: (LineSeriesOption | ScatterSeriesOption)[] = [
-    curve('sv', rows, (r) => r.sv, CURVE_STYLE.sv, axis.convert, toDepth),
-    porePressureCurve(model, rows, axis.convert, toDepth),
-    ...shminTrendCurves(model, rows, axis.convert, toDepth),
-    curve('shmin-conf-low', rows, (r) => r.shminConfidenceLow, CURVE_STYLE.confidence, axis.convert, toDepth),
-    curve('shmin-conf-high', rows, (r) => r.shminConfidenceHigh, { ...CURVE_STYLE.confidence }, axis.convert, toDepth),
-    curve('shmin-pred-low', rows, (r) => r.shminLow, CURVE_STYLE.prediction, axis.convert, toDepth),
-    curve('shmin-pred-high', rows, (r) => r.shminHigh, { ...CURVE_STYLE.prediction }, axis.convert, toDepth),
-    curve('shmax-high', rows, (r) => r.shmaxHigh, CURVE_STYLE.shmaxHigh, axis.convert, toDepth),
+    curve('sv', below, (r) => r.sv, CURVE_STYLE.sv, axis.convert, toDepth),
+    porePressureCurve(model, below, axis.convert, toDepth),
+    ...shminTrendCurves(model, tested, axis.convert, toDepth),
+    ...(range && (range.from < range.top || range.to > range.bottom) ? [extrapolatedTrend(model, below, range, axis.convert, toDepth)] : []),
+    curve('shmin-conf-low', banded, (r) => r.shminConfidenceLow, CURVE_STYLE.confidence, axis.convert, toDepth),
+    curve('shmin-conf-high', banded, (r) => r.shminConfidenceHigh, { ...CURVE_STYLE.confidence }, axis.convert, toDepth),
+    curve('shmin-pred-low', banded, (r) => r.shminLow, CURVE_STYLE.prediction, axis.convert, toDepth),
+    curve('shmin-pred-high', banded, (r) => r.shminHigh, { ...CURVE_STYLE.prediction }, axis.convert, toDepth),
+    curve('shmax-high', banded, (r) => r.shmaxHigh, CURVE_STYLE.shmaxHigh, axis.convert, toDepth),
   ];
   if (view.showReferences) {
     // B&vE is defined to 50,000 ft (its own range check); Eaton from the model's Sv and Pp.
-    series.push(curve('ref-breckels', rows, (r) => (r.tvd > 0 && r.tvd <= 15_240 ? breckelsVanEekelen(r.tvd, r.pp) : null), CURVE_STYLE.breckels, axis.convert, toDepth));
-    series.push(curve('ref-eaton', rows, (r) => (r.sv > r.pp ? eatonShmin(r.sv, r.pp, EATON_REFERENCE_POISSON) : null), CURVE_STYLE.eaton, axis.convert, toDepth));
+    series.push(curve('ref-breckels', below, (r) => (r.tvd > 0 && r.tvd <= 15_240 ? breckelsVanEekelen(r.tvd, r.pp) : null), CURVE_STYLE.breckels, axis.convert, toDepth));
+    series.push(curve('ref-eaton', below, (r) => (r.sv > r.pp ? eatonShmin(r.sv, r.pp, EATON_REFERENCE_POISSON) : null), CURVE_STYLE.eaton, axis.convert, toDepth));
   }
   const measured = porePressurePointSeries(model, view);
   if (measured) series.push(measured);
@@ -206,11 +263,11 @@ export function depthPlotOption(model: RegionalModel, rows: StressTableRow[], vi
     const symbol = t.shmin.kind === 'lower-bound' ? LOWER_BOUND_SYMBOL : t.shmin.kind === 'upper-bound' ? UPPER_BOUND_SYMBOL : GRADE_SYMBOL[t.grade];
     const key = `${accepted ? 'a' : 'u'}-${bound ? t.shmin.kind : t.grade}`;
     const name = accepted
-      ? bound ? (t.shmin.kind === 'lower-bound' ? 'Shmin lower bound (FIT)' : 'Shmin upper bound') : `Test grade ${t.grade}`
-      : 'Not accepted (rejected or in review)';
+      ? bound ? (t.shmin.kind === 'lower-bound' ? 'FIT lower bound' : 'Upper bound') : `Grade ${t.grade}`
+      : 'Not accepted';
     const g = groups.get(key) ?? { name, symbol, hollow: !accepted, data: [] };
     const color = accepted ? colors.get(t.well)! : HIDDEN_TEST_COLOR;
-    const tip = `${t.well} · ${t.file}<br/>Shmin ${x.toFixed(view.mode === 'pressure' && view.units === 'oilfield' ? 0 : 3)} ${axis.x} (${t.shmin.kind}, from ${t.shmin.from})<br/>TVD ${toDepth(t.tvd).toFixed(1)} ${axis.depth} · grade ${t.grade} · ${t.state}${t.reviewer ? ` · signed off by ${t.reviewer}` : ''}${t.outlier ? '<br/><b>Outlier of the trend</b>' : ''}${t.used ? '' : `<br/>Not fitted${t.reason ? `: ${t.reason}` : ''}`}`;
+    const tip = `${t.well} · ${t.file}<br/>Shmin ${x.toFixed(view.mode === 'pressure' && view.units === 'oilfield' ? 0 : 3)} ${axis.x} (${t.shmin.kind.replace('-', ' ')}, from ${t.shmin.from})<br/>TVD ${toDepth(t.tvd).toFixed(1)} ${axis.depth} · grade ${t.grade} · ${t.state}${t.reviewer ? ` · signed off by ${t.reviewer}` : ''}${t.outlier ? '<br/><b>Outlier of the trend</b>' : ''}${t.used ? '' : `<br/>Not fitted${t.reason ? `: ${t.reason}` : ''}`}`;
     g.data.push({
       name: t.testId, value: [x, toDepth(t.tvd)], tip,
       itemStyle: accepted
@@ -229,7 +286,7 @@ export function depthPlotOption(model: RegionalModel, rows: StressTableRow[], vi
   }
   if (model.reopeningPoints.length) {
     series.push({
-      id: 'pick-test-reopening', name: 'SHmax from reopening (indicative)', type: 'scatter', symbol: REOPENING_SYMBOL, symbolSize: 15,
+      id: 'pick-test-reopening', name: 'SHmax, reopening', type: 'scatter', symbol: REOPENING_SYMBOL, symbolSize: 15,
       data: model.reopeningPoints.map((p) => {
         const x = axis.convert(p.shmax, p.tvd);
         return {
@@ -243,8 +300,8 @@ export function depthPlotOption(model: RegionalModel, rows: StressTableRow[], vi
   }
   return {
     animation: false,
-    grid: { left: 70, right: 24, top: 64, bottom: 48 },
-    legend: { top: 4, type: 'scroll', textStyle: { fontSize: 11 } },
+    grid: { left: 70, right: 24, top: 40, bottom: 96 },
+    legend: { bottom: 4, left: 'center', type: 'plain', itemGap: 14, itemWidth: 22, textStyle: { fontSize: 13 } },
     tooltip: {
       trigger: 'item', confine: true,
       formatter: (p: unknown) => {
@@ -254,8 +311,27 @@ export function depthPlotOption(model: RegionalModel, rows: StressTableRow[], vi
         return v ? `${d.seriesName}: ${Number(v[0]).toFixed(3)} ${axis.x} at ${Number(v[1]).toFixed(0)} ${axis.depth}` : String(d.seriesName ?? '');
       },
     },
-    xAxis: { type: 'value', name: view.mode === 'pressure' ? `Pressure [${axis.x}]` : view.mode === 'gradient' ? `Gradient [${axis.x}]` : `Equivalent mud weight [${axis.x}]`, nameLocation: 'middle', nameGap: 28, position: 'top', scale: view.mode !== 'pressure' },
-    yAxis: { type: 'value', name: `TVD [${axis.depth}]`, inverse: true, nameLocation: 'middle', nameGap: 50, min: 0 },
+    xAxis: { type: 'value', name: view.mode === 'pressure' ? `Pressure (${axis.x})` : view.mode === 'gradient' ? `Gradient (${axis.x})` : `Equivalent mud weight (${axis.x})`, nameLocation: 'middle', nameGap: 28, position: 'top', scale: view.mode !== 'pressure',
+      ...(view.mode === 'pressure' ? {} : { min: axisMinWithMargin, max: axisMaxWithMargin }) },
+    yAxis: { type: 'value', name: `TVD (${axis.depth})`, inverse: true, nameLocation: 'middle', nameGap: 50, min: 0 },
     series,
   } as ChartOption;
+}
+
+/** A round axis step for a data range: a tenth of its order of magnitude. */
+function axisStep(e: { min: number; max: number }): number {
+  const range = Math.max(e.max - e.min, Math.abs(e.max) * 0.01, 1e-9);
+  return 10 ** Math.floor(Math.log10(range)) / 10;
+}
+
+/** The axis start: a round value at least 4 % of the data range below the smallest value (so no curve sits on the edge). */
+function axisMinWithMargin(e: { min: number; max: number }): number {
+  const step = axisStep(e);
+  return Number((Math.floor((e.min - (e.max - e.min) * 0.04) / step) * step).toPrecision(10));
+}
+
+/** The axis end: a round value at least 4 % of the data range above the largest value. */
+function axisMaxWithMargin(e: { min: number; max: number }): number {
+  const step = axisStep(e);
+  return Number((Math.ceil((e.max + (e.max - e.min) * 0.04) / step) * step).toPrecision(10));
 }

@@ -88,3 +88,48 @@ describe('depthPlotOption reference curves', () => {
     expect(pointsOf(option).map((p) => p.id)).not.toContain('pp-950');
   });
 });
+
+describe('depthPlotOption depth ranges and layout', () => {
+  const model = buildRegionalModel(tests(), { field: 'Harrow Flats' });
+  const rows = stressTable(model, { from: 100, to: 2500, step: 100 });
+
+  it('should draw the trend solid over the tested TVDs and dashed no shallower than one table step above them', () => {
+    // Fitted tests at 900-2100 m, table step 100 m (synthetic truth above): solid 900-2100 m, extrapolated 800-900 m and 2100-2500 m.
+    const option = depthPlotOption(model, rows, { mode: 'gradient', units: 'si', showUnaccepted: false });
+    const series = option.series as { id: string; data: (number | null)[][] }[];
+    const depthsOf = (id: string) => series.find((s) => s.id === id)!.data.map((d) => d[1]).filter((z): z is number => z !== null);
+    const trend = depthsOf('shmin');
+    expect(Math.min(...trend)).toBeCloseTo(900, 6);
+    expect(Math.max(...trend)).toBeCloseTo(2100, 6);
+    const extrapolated = depthsOf('shmin-extrapolated');
+    expect(Math.min(...extrapolated)).toBeCloseTo(800, 6);
+    expect(Math.max(...extrapolated)).toBeCloseTo(2500, 6);
+    for (const id of ['shmin-conf-low', 'shmin-pred-high', 'shmax-high']) expect(Math.min(...depthsOf(id))).toBeCloseTo(800, 6);
+    // The trend is linear in TVD, so at 900 m its gradient is (1 MPa + 16.5 kPa/m x 900 m) / 900 m within the fit's scatter (about 17.6 kPa/m).
+    const shallow = series.find((s) => s.id === 'shmin')!.data.find((d) => d[1] === 900)!;
+    expect(shallow[0]!).toBeGreaterThan(17.2);
+    expect(shallow[0]!).toBeLessThan(18.0);
+  });
+
+  it('should start gradient and EMW curves below the mudline and give the axis a margin', () => {
+    const option = depthPlotOption(model, rows, { mode: 'emw', units: 'si', showUnaccepted: false, mudline: 350 });
+    const sv = (option.series as { id: string; data: (number | null)[][] }[]).find((s) => s.id === 'sv')!;
+    expect(Math.min(...sv.data.map((d) => d[1]!))).toBe(400);
+    const x = option.xAxis as { name: string; min: (e: { min: number; max: number }) => number; max: (e: { min: number; max: number }) => number };
+    expect(x.name).toBe('Equivalent mud weight (sg EMW)');
+    // Pp at 1.02 sg must not sit on the axis edge.
+    expect(x.min({ min: 1.02, max: 2.3 })).toBeLessThan(1.02);
+    expect(x.max({ min: 1.02, max: 2.3 })).toBeGreaterThan(2.3);
+    // The pressure view keeps the curves from the first table row.
+    const pressure = depthPlotOption(model, rows, { mode: 'pressure', units: 'si', showUnaccepted: false, mudline: 350 });
+    expect((pressure.series as { id: string; data: number[][] }[]).find((s) => s.id === 'sv')!.data[0][1]).toBe(100);
+  });
+
+  it('should lay the legend out unpaged below the plot with a readable font', () => {
+    const option = depthPlotOption(model, rows, { mode: 'pressure', units: 'si', showUnaccepted: true });
+    const legend = option.legend as { type: string; textStyle: { fontSize: number } };
+    expect(legend.type).toBe('plain');
+    expect(legend.textStyle.fontSize).toBeGreaterThanOrEqual(12);
+    expect((option.yAxis as { name: string }).name).toBe('TVD (m)');
+  });
+});
