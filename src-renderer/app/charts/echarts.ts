@@ -1,6 +1,7 @@
 /**
  * ECharts with only the parts the review screen draws: line and scatter series,
- * grid, tooltip, legend, data zoom, mark lines and graphics, canvas renderer.
+ * grid, tooltip, legend, data zoom, mark lines and graphics, label layout (overlap
+ * hiding), canvas renderer.
  */
 import * as echarts from 'echarts/core';
 import { LineChart, ScatterChart, type LineSeriesOption, type ScatterSeriesOption } from 'echarts/charts';
@@ -11,10 +12,11 @@ import {
   type DataZoomComponentOption, type MarkLineComponentOption, type GraphicComponentOption, type TitleComponentOption,
 } from 'echarts/components';
 import { CanvasRenderer } from 'echarts/renderers';
+import { LabelLayout } from 'echarts/features';
 
 echarts.use([
   LineChart, ScatterChart, GridComponent, TooltipComponent, LegendComponent, DataZoomComponent,
-  MarkLineComponent, GraphicComponent, TitleComponent, AxisPointerComponent, CanvasRenderer,
+  MarkLineComponent, GraphicComponent, TitleComponent, AxisPointerComponent, CanvasRenderer, LabelLayout,
 ]);
 
 export type ChartOption = echarts.ComposeOption<

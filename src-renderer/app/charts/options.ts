@@ -86,6 +86,16 @@ export function tickLabel(value: number): string {
   return Number(value.toFixed(digits)).toLocaleString('en-US', { maximumFractionDigits: digits });
 }
 
+/**
+ * Side of its marker each pick's label sits on, so neighbouring picks do not write over each
+ * other's markers: the leak-off point (on the rising loading line) to the left, the ISIP (just
+ * after the pumping peak, and on the pressure axis of the shut-in charts) to the right, the
+ * closure (below the ISIP on the decline) underneath, peaks above.
+ */
+const PICK_LABEL_SIDE: Record<PickKind, 'top' | 'bottom' | 'left' | 'right'> = {
+  leakOff: 'left', breakdown: 'top', propagation: 'top', isip: 'right', closure: 'bottom', reopening: 'left', fitMaximum: 'top', extension: 'top',
+};
+
 function pickSeries(picks: { key: string; kind: PickKind; x: number; y: number }[], yAxisIndex = 0): ScatterSeriesOption[] {
   const kinds = [...new Set(picks.map((p) => p.kind))];
   // Labels only when few picks share the chart; otherwise on hover or selection (the legend keys the shapes).
@@ -103,7 +113,9 @@ function pickSeries(picks: { key: string; kind: PickKind; x: number; y: number }
       z: 10,
       cursor: 'move',
       itemStyle: { color: s.color, borderColor: '#ffffff', borderWidth: 1.5 },
-      label: { show: labels, formatter: s.short, position: 'top', distance: 6, color: s.color, fontWeight: 'bold', fontSize: 11 },
+      label: { show: labels, formatter: s.short, position: PICK_LABEL_SIDE[kind], distance: 6, color: s.color, fontWeight: 'bold', fontSize: 11 },
+      // A label that would cover another one is hidden (it shows on hover); see PICK_LABEL_SIDE.
+      labelLayout: { hideOverlap: true },
       emphasis: { scale: 1.5, label: { show: true, formatter: (p: { name: string }) => `${s.short} c${p.name.split(':')[0]}` } },
       data: picks.filter((p) => p.kind === kind).map((p) => ({ name: p.key, value: [p.x, p.y] })),
       tooltip: { trigger: 'item' },

@@ -8,22 +8,29 @@ import { emwFromPressure, gradientFromPressure } from '../../engine/units/mudWei
 
 export type { UnitSystem };
 
-/** What the screens show, per quantity. 'emw' is the equivalent mud weight (a density); 'stiffness' dP/dV. */
-export type DisplayQuantity = 'pressure' | 'depth' | 'time' | 'rate' | 'volume' | 'density' | 'gradient' | 'emw' | 'stiffness';
+/**
+ * What the screens show, per quantity. 'emw' is the equivalent mud weight (a density); 'stiffness' dP/dV;
+ * 'diameter' a hole or pipe diameter (a length shown in mm or in, not in the depth unit).
+ */
+export type DisplayQuantity = 'pressure' | 'depth' | 'time' | 'rate' | 'volume' | 'density' | 'gradient' | 'emw' | 'stiffness' | 'diameter';
 
 const DIMENSION: Record<Exclude<DisplayQuantity, 'stiffness' | 'time'>, Dimension> = {
-  pressure: 'pressure', depth: 'length', rate: 'rate', volume: 'volume', density: 'density', gradient: 'gradient', emw: 'density',
+  pressure: 'pressure', depth: 'length', rate: 'rate', volume: 'volume', density: 'density', gradient: 'gradient', emw: 'density', diameter: 'length',
 };
+
+/** Unit of hole and pipe diameters: millimetres in SI, inches in oilfield (engine unit definitions 'mm' and 'in'). */
+export const DIAMETER_UNIT: Readonly<Record<UnitSystem, string>> = { si: 'mm', oilfield: 'in' };
 
 /** Decimals shown per quantity and system (app's choice, for readable tables). */
 const DIGITS: Record<UnitSystem, Record<DisplayQuantity, number>> = {
-  si: { pressure: 2, depth: 1, time: 1, rate: 3, volume: 3, density: 2, gradient: 2, emw: 2, stiffness: 1 },
-  oilfield: { pressure: 0, depth: 0, time: 1, rate: 2, volume: 2, density: 2, gradient: 3, emw: 2, stiffness: 0 },
+  si: { pressure: 2, depth: 1, time: 1, rate: 3, volume: 3, density: 2, gradient: 2, emw: 2, stiffness: 1, diameter: 1 },
+  oilfield: { pressure: 0, depth: 0, time: 1, rate: 2, volume: 2, density: 2, gradient: 3, emw: 2, stiffness: 0, diameter: 3 },
 };
 
 function unitOf(system: UnitSystem, quantity: DisplayQuantity): string {
   if (quantity === 'time') return 'min';
   if (quantity === 'stiffness') return `${DISPLAY_UNITS[system].pressure}/${DISPLAY_UNITS[system].volume}`;
+  if (quantity === 'diameter') return DIAMETER_UNIT[system];
   return DISPLAY_UNITS[system][DIMENSION[quantity]];
 }
 
@@ -94,4 +101,21 @@ export function formatSignificant(system: UnitSystem, quantity: DisplayQuantity,
   const v = toDisplay(system, quantity, valueSI);
   const text = v === 0 ? '0' : Math.abs(v) >= 10 ** significant ? formatNumber(v, 0) : String(Number(v.toPrecision(significant)));
   return `${text} ${unitLabel(system, quantity)}`;
+}
+
+/** Unit of small volumes (a fracture the record could just see): litres in SI, US gallons in oilfield. */
+const SMALL_VOLUME_UNIT: Record<UnitSystem, string> = { si: 'L', oilfield: 'gal' };
+
+/**
+ * A small volume, m3, in the system's small-volume unit (L or US gal, engine unit
+ * definitions), with the digits of the analysis messages: formatSmallVolume('si', 4.71e-4) === '0.47 L'.
+ */
+export function formatSmallVolume(system: UnitSystem, valueSI: number | null | undefined): string {
+  if (valueSI === null || valueSI === undefined || !Number.isFinite(valueSI)) return '–';
+  const unit = SMALL_VOLUME_UNIT[system];
+  const v = fromSI(valueSI, unit, 'volume');
+  const a = Math.abs(v);
+  // The digits the analysis uses in its own messages (whole from 100, one decimal from 10, two from 0.1, else 2 significant).
+  const text = a === 0 ? '0' : a >= 100 ? v.toFixed(0) : a >= 10 ? v.toFixed(1) : a >= 0.1 ? v.toFixed(2) : v.toPrecision(2);
+  return `${text} ${unit}`;
 }

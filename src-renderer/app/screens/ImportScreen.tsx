@@ -40,6 +40,17 @@ const STATUS_WORDS: Record<ItemStatus, { glyph: string; words: string }> = {
   failed: { glyph: '✕', words: 'Failed' },
 };
 
+/**
+ * Words of the import button: only the readable files count as imported; the unreadable ones
+ * are named beside them (they are still passed to the archive, so the batch summary reports
+ * each with its line and column, and nothing of them is stored).
+ */
+export function importButtonWords(readable: number, unreadable: number): string {
+  const cannot = unreadable > 0 ? ` (${unreadable} cannot be read)` : '';
+  if (readable === 0) return unreadable > 0 ? `Nothing readable to import${cannot}` : 'Nothing left to import';
+  return `Import ${readable} file${readable === 1 ? '' : 's'}${cannot}`;
+}
+
 /** A file is ready when the full read succeeded; otherwise its problem is shown with its place. */
 function statusOfPreview(p: ImportPreview): Pick<ImportItem, 'status' | 'error'> {
   if (p.parsed) return { status: 'ready', error: undefined };
@@ -157,7 +168,8 @@ export function ImportScreen() {
   };
 
   const selected = items.find((i) => i.key === selectedKey) ?? null;
-  const pending = items.filter((i) => i.status === 'ready' || i.status === 'unreadable').length;
+  const readable = items.filter((i) => i.status === 'ready').length;
+  const unreadable = items.filter((i) => i.status === 'unreadable').length;
 
   return (
     <div className="page" data-testid="screen-import"
@@ -201,8 +213,8 @@ export function ImportScreen() {
         <div className="import-layout">
           <div className="panel tight stack">
             <div className="row"><h2 style={{ margin: 0 }}>Files ({items.length})</h2><span className="spacer" />
-              <button className="btn primary" type="button" onClick={() => void runImport()} disabled={busy || pending === 0} data-testid="import-run">
-                {pending === 0 ? 'Nothing left to import' : `Import ${pending} file${pending === 1 ? '' : 's'}`}
+              <button className="btn primary" type="button" onClick={() => void runImport()} disabled={busy || readable === 0} data-testid="import-run">
+                {importButtonWords(readable, unreadable)}
               </button>
             </div>
             <div className="file-list" role="listbox" aria-label="Files">

@@ -13,7 +13,7 @@ export const EDITABLE_METADATA: { key: keyof TestMetadata; label: string; quanti
   { key: 'depthMd', label: 'Test depth MD', quantity: 'depth' },
   { key: 'mudDensity', label: 'Mud density', quantity: 'density' },
   { key: 'casingShoeTvd', label: 'Casing shoe TVD', quantity: 'depth' },
-  { key: 'holeDiameter', label: 'Hole diameter', quantity: 'depth' },
+  { key: 'holeDiameter', label: 'Hole diameter', quantity: 'diameter' },
 ];
 
 /** Text values the engineer typed over the file's metadata (display units); '' means "as the file says". */

@@ -15,6 +15,8 @@ import { messageWords, methodWords, stressMethodWords } from '../../format/metho
 import { formatQuantity, type UnitSystem } from '../../format/units';
 import { describeEvent, eventTime } from '../../state/logWords';
 import { criterionCells, criterionName } from '../test/QualityPanel';
+import { detectabilityText } from '../test/StressPanel';
+import { withoutZoomSlider } from './printChart';
 import './report.css';
 
 /** Props of {@link ReportView}. */
@@ -32,10 +34,11 @@ export interface ReportViewProps {
 
 function TestSection({ detail, units }: { detail: TestDetail; units: UnitSystem }) {
   const { summary: s, analysis: a, metadata: m } = detail;
-  const option = useMemo(() => timeChartOption({
+  // A report is read on paper: no zoom slider under the chart.
+  const option = useMemo(() => withoutZoomSlider(timeChartOption({
     time: detail.samples.time, gaugePressure: detail.samples.pressure, downholePressure: a.downholePressure,
     rate: detail.samples.rate, picks: placedPicks(a), units, target: 900, range: null, showGauge: true,
-  }), [detail, a, units]);
+  })), [detail, a, units]);
   const manual = new Map(detail.manualPicks.map((p) => [`${p.cycle}:${p.kind}`, p]));
   const st = a.stress;
   const q = (v: number | null | undefined) => formatQuantity(units, 'pressure', v ?? null);
@@ -50,6 +53,7 @@ function TestSection({ detail, units }: { detail: TestDetail; units: UnitSystem 
         <dt>Contractor</dt><dd>{m.contractor ?? '–'}</dd>
         <dt>Test date</dt><dd>{m.date ?? '–'}</dd>
         <dt>Mud density</dt><dd>{formatQuantity(units, 'density', m.mudDensity ?? null)}</dd>
+        <dt>Hole diameter</dt><dd>{formatQuantity(units, 'diameter', m.holeDiameter ?? null)}</dd>
         <dt>Gauge</dt><dd>{m.gaugePosition ?? 'surface'}</dd>
         <dt>Imported</dt><dd>{eventTime(s.importedAt)} by {s.importedBy}</dd>
         <dt>Signed off / rejected by</dt><dd>{s.reviewer ?? '–'}</dd>
@@ -80,7 +84,9 @@ function TestSection({ detail, units }: { detail: TestDetail; units: UnitSystem 
           <tr><th>Pp</th><td>{q(st.pp.value)} ({st.pp.source.replace('-', ' ')})</td></tr>
         </tbody>
       </table>
-      {st.shmax && st.shmax.cautions.length > 0 && <ul>{st.shmax.cautions.map((c) => <li key={c} className="shmax-caution">{c}</li>)}</ul>}
+      {st.shmax && st.shmax.cautions.length > 0 && <ul>{st.shmax.cautions.map((c) => (
+        <li key={c} className="shmax-caution">{st.shmax!.detectability && c === st.shmax!.detectability.message ? detectabilityText(c, units, st.shmax!.detectability.minDetectableVolume) : c}</li>
+      ))}</ul>}
       <h3>Quality criteria — grade {a.quality.grade}</h3>
       <p>{a.quality.explanation}</p>
       <table>

@@ -1,4 +1,5 @@
 import { useEffect, useMemo, useState } from 'react';
+import { flushSync } from 'react-dom';
 import type { StoredSamples } from '../../../archive/api';
 import type { TestType } from '../../../engine/record';
 import type { AnalysisResult } from '../../../engine/result';
@@ -12,6 +13,7 @@ import {
 import { hasShutIn, shutInDiagnostics } from '../../charts/shutInDiagnostics';
 import { fromDisplay } from '../../format/units';
 import { nearestIndex, nearestIndexUnsorted, pickRange } from '../../state/pickPlacement';
+import { withZoomSlider } from '../report/printChart';
 import type { PickEditRequest } from './PickDialog';
 
 type Tab = 'volume' | 'shutin' | 'steprate' | 'overlay';
@@ -57,13 +59,31 @@ export function TestCharts({ samples, downhole: headerDownhole, correction, type
     return () => { cancelAnimationFrame(frame); clearTimeout(timer); };
   }, []);
 
+  // Printing (print dialog, save as PDF, or print media): the time chart is drawn without its
+  // zoom slider. The change is flushed at once so the chart is redrawn before the page is laid out.
+  const [printing, setPrinting] = useState(false);
+  useEffect(() => {
+    const media = window.matchMedia?.('print');
+    const set = (on: boolean) => flushSync(() => setPrinting(on));
+    const before = () => set(true);
+    const after = () => set(media?.matches ?? false);
+    const change = (e: MediaQueryListEvent) => set(e.matches);
+    window.addEventListener('beforeprint', before);
+    window.addEventListener('afterprint', after);
+    media?.addEventListener?.('change', change);
+    return () => { window.removeEventListener('beforeprint', before); window.removeEventListener('afterprint', after); media?.removeEventListener?.('change', change); };
+  }, []);
+
   const rangeSeconds = useMemo<[number, number] | null>(() => (range ? [fromDisplay(units, 'time', range[0]), fromDisplay(units, 'time', range[1])] : null), [range, units]);
   // The thinned record (min/max per pixel column for a long one): depends on the samples and the view only.
   const recordOption = useMemo(() => timeChartOption({
     time, gaugePressure: pressure, downholePressure: downhole, rate, picks: [], units, target: TARGET, range: rangeSeconds, showGauge,
   }), [time, pressure, downhole, rate, units, rangeSeconds, showGauge]);
-  const timeOption = useMemo(() => (picks.length === 0 ? recordOption
-    : { ...recordOption, series: [...(recordOption.series as object[]), ...timeChartPickSeries(picks, units)] } as ChartOption), [recordOption, picks, units]);
+  const timeOption = useMemo(() => {
+    const withPicks = picks.length === 0 ? recordOption
+      : { ...recordOption, series: [...(recordOption.series as object[]), ...timeChartPickSeries(picks, units)] } as ChartOption;
+    return withZoomSlider(withPicks, !printing);
+  }, [recordOption, picks, units, printing]);
   const volumeOption = useMemo(() => (analysis && diagnosticsReady && shown === 'volume' ? volumeChartOption({ time, volume, downholePressure: downhole, cycles, units, target: TARGET }) : null),
     [analysis, diagnosticsReady, shown, time, volume, downhole, cycles, units]);
   const shutIn = useMemo(() => {

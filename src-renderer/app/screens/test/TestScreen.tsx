@@ -11,7 +11,7 @@ import { PickDialog, type PickEditRequest } from './PickDialog';
 import { PickPanel } from './PickPanel';
 import { QualityPanel } from './QualityPanel';
 import { ReviewPanel } from './ReviewPanel';
-import { StressPanel } from './StressPanel';
+import { StressPanel, stressAttention } from './StressPanel';
 import { TestCharts } from './TestCharts';
 
 type SideTab = 'quality' | 'stress' | 'picks' | 'review';
@@ -144,6 +144,7 @@ export function TestScreen({ testId }: { testId: string }) {
             <span>TVD <b>{formatQuantity(units, 'depth', s.depthTvd)}</b></span>
             <span>MD <b>{formatQuantity(units, 'depth', s.depthMd)}</b></span>
             <span>Mud <b>{formatQuantity(units, 'density', m.mudDensity ?? null)}</b></span>
+            {m.holeDiameter !== undefined && <span>Hole <b data-testid="hole-diameter">{formatQuantity(units, 'diameter', m.holeDiameter)}</b></span>}
             <span>Gauge <b>{m.gaugePosition ?? 'surface'}</b></span>
             <span>File <b className="mono">{s.fileName}</b></span>
             <span>Imported by <b>{s.importedBy}</b></span>
@@ -173,10 +174,16 @@ export function TestScreen({ testId }: { testId: string }) {
         <TestCharts samples={samples} downhole={downhole} correction={correction} type={type} analysis={a} units={units} selected={selected} onSelect={(k) => { setSelected(k); setSide('picks'); }} onDrop={setEditing} />
         <div className="side">
           <div className="tabs" role="tablist" aria-label="Test details">
-            {SIDE_TABS.map((t) => (
-              <button key={t.id} type="button" role="tab" className="tab" aria-selected={side === t.id} data-testid={`side-tab-${t.id}`}
-                onClick={() => setSide(t.id)}>{t.label}{t.id === 'stress' && a?.stress.shmax ? ' ⚠' : ''}</button>
-            ))}
+            {SIDE_TABS.map((t) => {
+              // The stress tab is marked only for something beyond the caution every SHmax carries.
+              const attention = t.id === 'stress' && a ? stressAttention(a.stress) : [];
+              return (
+                <button key={t.id} type="button" role="tab" className="tab" aria-selected={side === t.id} data-testid={`side-tab-${t.id}`}
+                  title={attention.length ? attention.join('; ') : undefined} onClick={() => setSide(t.id)}>
+                  {t.label}{attention.length ? <span data-testid="stress-attention" aria-label={`needs attention: ${attention.join('; ')}`}> ⚠</span> : null}
+                </button>
+              );
+            })}
           </div>
           {/* Every panel stays mounted: the inactive ones are hidden on screen and printed in the report. */}
           <div className={side === 'quality' ? undefined : 'print-only'}>{a ? <QualityPanel quality={a.quality} limits={limits} /> : <Analysing title="Quality" testId="quality-analysing" />}</div>
