@@ -67,8 +67,9 @@ describe('minMaxPerPixel', () => {
           keptMin.set(c, Math.min(keptMin.get(c) ?? Infinity, values[i]));
           keptMax.set(c, Math.max(keptMax.get(c) ?? -Infinity, values[i]));
         }
-        for (const [c, v] of fullMin) expect(keptMin.get(c)).toBe(v);
-        for (const [c, v] of fullMax) expect(keptMax.get(c)).toBe(v);
+        // Values compare as numbers: -0 and +0 are the same reading (x + 0 turns -0 into +0).
+        for (const [c, v] of fullMin) expect(keptMin.get(c)! + 0).toBe(v + 0);
+        for (const [c, v] of fullMax) expect(keptMax.get(c)! + 0).toBe(v + 0);
         expect(kept[0]).toBe(0);
         expect(kept[kept.length - 1]).toBe(n - 1);
       },
