@@ -3,17 +3,34 @@
  * engine's published methods: Nolte's G-function (engine/analysis/gfunction.ts),
  * a local-regression derivative and Bourdet's log derivative (engine/analysis/derivative.ts).
  */
-import { gFunctionSeries } from '../../engine/analysis/gfunction';
-import { logLogDiagnostic, smoothedDerivative } from '../../engine/analysis/derivative';
+import { shutInArrays, type ShutInArrays } from '../workers/shutInArrays';
 import type { CycleAnalysis, PickKind } from '../../engine/result';
 import { pickKey, type ShutInSeries } from './options';
 
-/** Fraction of the x range used as the derivative window (common practice: a few per cent smooths gauge noise). */
-const WINDOW_FRACTION = 0.04;
+export { shutInArrays, type ShutInArrays };
 
 /** Whether a cycle has a shut-in long enough to diagnose (at least 5 samples after the pumps stop). */
 export function hasShutIn(c: CycleAnalysis): boolean {
   return c.cycle.shutInEnd - c.cycle.pumpEnd >= 5;
+}
+
+/** The shut-in samples of one cycle: time (s) and downhole pressure (Pa) from the pump stop to the end of the shut-in. */
+export interface ShutInSlice {
+  /** Elapsed time of each shut-in sample, s (a copy of the record's, element 0 at the pump stop). */
+  time: Float64Array;
+  /** Downhole pressure of each shut-in sample, Pa (a copy). */
+  downhole: Float64Array;
+  /** Pumping duration tp of the cycle, s (> 0). */
+  pumpingTime: number;
+}
+
+/** Copies out a cycle's shut-in samples, or null when the cycle has no usable shut-in. */
+export function shutInSlice(time: Float64Array, downhole: Float64Array, c: CycleAnalysis): ShutInSlice | null {
+  if (!hasShutIn(c)) return null;
+  const { pumpStart, pumpEnd, shutInEnd } = c.cycle;
+  const pumpingTime = time[pumpEnd] - time[pumpStart];
+  if (!(pumpingTime > 0)) return null;
+  return { time: time.slice(pumpEnd, shutInEnd + 1), downhole: downhole.slice(pumpEnd, shutInEnd + 1), pumpingTime };
 }
 
 /**
@@ -21,27 +38,15 @@ export function hasShutIn(c: CycleAnalysis): boolean {
  * Returns null when the cycle has no usable shut-in. All values SI.
  */
 export function shutInDiagnostics(time: Float64Array, downhole: Float64Array, c: CycleAnalysis): ShutInSeries | null {
-  if (!hasShutIn(c)) return null;
-  const { pumpStart, pumpEnd, shutInEnd, index } = c.cycle;
-  const pumpingTime = time[pumpEnd] - time[pumpStart];
-  if (!(pumpingTime > 0)) return null;
-  const t0 = time[pumpEnd];
-  const n = shutInEnd - pumpEnd + 1;
-  const dt = new Float64Array(n);
-  for (let i = 0; i < n; i++) dt[i] = time[pumpEnd + i] - t0;
-  const pressure = downhole.slice(pumpEnd, shutInEnd + 1);
-  const g = gFunctionSeries(time, pumpEnd, shutInEnd, pumpingTime);
-  const gMax = g[n - 1];
-  const dpdg = gMax > 0 ? smoothedDerivative(g, pressure, 0, n - 1, gMax * WINDOW_FRACTION) : new Float64Array(n).fill(NaN);
-  const gdpdg = new Float64Array(n);
-  for (let i = 0; i < n; i++) gdpdg[i] = -g[i] * dpdg[i];
-  const root = new Float64Array(n);
-  for (let i = 0; i < n; i++) root[i] = Math.sqrt(dt[i]);
-  const rootMax = root[n - 1];
-  const sqrtDerivative = rootMax > 0 ? smoothedDerivative(root, pressure, 0, n - 1, rootMax * WINDOW_FRACTION) : new Float64Array(n).fill(NaN);
-  for (let i = 0; i < n; i++) sqrtDerivative[i] = -sqrtDerivative[i];
-  const loglog = logLogDiagnostic(time, downhole, pumpEnd, shutInEnd);
+  const slice = shutInSlice(time, downhole, c);
+  return slice ? shutInSeriesOf(shutInArrays(slice.time, slice.downhole, slice.pumpingTime), c) : null;
+}
 
+/** Adds a cycle's picks, closure candidates and closure tangent to its shut-in arrays (cheap; runs on the window's thread). */
+export function shutInSeriesOf(arrays: ShutInArrays, c: CycleAnalysis): ShutInSeries {
+  const { pumpEnd, shutInEnd, index } = c.cycle;
+  const { g, gdpdg } = arrays;
+  const t0 = arrays.shutInTime;
   const picks: ShutInSeries['picks'] = [];
   for (const kind of ['isip', 'closure'] as PickKind[]) {
     const p = c.picks[kind];
@@ -59,8 +64,8 @@ export function shutInDiagnostics(time: Float64Array, downhole: Float64Array, c:
     .filter((cc) => cc.sampleIndex >= pumpEnd && cc.sampleIndex <= shutInEnd)
     .map((cc) => ({ method: cc.method, dt: cc.time - t0, pressure: cc.pressure, g: cc.g ?? g[cc.sampleIndex - pumpEnd] }));
   return {
-    cycle: index, dt, pressure, g, gdpdg, tangentSlope, rootDt: root, sqrtDerivative,
-    logElapsed: loglog.elapsed, deltaP: loglog.pressureChange, logDerivative: loglog.derivative,
+    cycle: index, dt: arrays.dt, pressure: arrays.pressure, g, gdpdg, tangentSlope, rootDt: arrays.rootDt, sqrtDerivative: arrays.sqrtDerivative,
+    logElapsed: arrays.logElapsed, deltaP: arrays.deltaP, logDerivative: arrays.logDerivative,
     candidates, picks,
   };
 }

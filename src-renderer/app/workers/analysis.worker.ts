@@ -1,11 +1,12 @@
 /// <reference lib="webworker" />
 /**
- * The analysis worker: file parsing, column preview and analysis run here, so the
+ * The analysis worker: file parsing, column preview, analysis and the shut-in
+ * diagnostic series run here, so the
  * window never freezes on a large record or a long batch.
  */
 import { isEngineError } from '../../engine/errors';
 import { runEngineRequest } from './engineCalls';
-import type { WorkerReply, WorkerRequest } from './protocol';
+import { transferablesOf, type WorkerReply, type WorkerRequest } from './protocol';
 
 const scope = self as unknown as DedicatedWorkerGlobalScope;
 
@@ -22,5 +23,6 @@ scope.onmessage = async (event: MessageEvent<WorkerRequest>) => {
       reply = { id: request.id, ok: false, error: { name: err.name, code: 'internal', message: err.message, location: {} } };
     }
   }
-  scope.postMessage(reply);
+  // The shut-in arrays go back by transfer (no copy of a million-sample series).
+  scope.postMessage(reply, reply.ok && request.op === 'shut-in-diagnostics' ? transferablesOf(reply.value) : []);
 };

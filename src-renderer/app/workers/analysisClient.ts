@@ -4,6 +4,7 @@ import type { TestRecord } from '../../engine/record';
 import type { AnalysisResult } from '../../engine/result';
 import type { ArchiveEngine } from '../../archive/engine-port';
 import type { ImportPreview } from './engineCalls';
+import type { ShutInArrays } from './shutInArrays';
 import type { WorkerError, WorkerReply, WorkerRequest } from './protocol';
 
 type Pending = { resolve: (v: unknown) => void; reject: (e: unknown) => void };
@@ -52,12 +53,12 @@ export class AnalysisClient implements ArchiveEngine {
     return worker;
   }
 
-  private call<T>(body: RequestBody): Promise<T> {
+  private call<T>(body: RequestBody, transfer: Transferable[] = []): Promise<T> {
     const id = this.nextId++;
     const worker = this.ensureWorker();
     return new Promise<T>((resolve, reject) => {
       this.pending.set(id, { resolve: resolve as (v: unknown) => void, reject });
-      worker.postMessage({ ...body, id } as WorkerRequest);
+      worker.postMessage({ ...body, id } as WorkerRequest, transfer);
     });
   }
 
@@ -78,6 +79,16 @@ export class AnalysisClient implements ArchiveEngine {
   /** Detected columns, units and metadata of a file, for the import confirmation. */
   preview(bytes: Uint8Array, fileName: string, options?: Record<string, unknown>): Promise<ImportPreview> {
     return this.call<ImportPreview>({ op: 'preview', bytes, fileName, options });
+  }
+
+  /**
+   * G-function, square-root-of-time and log-log arrays of one cycle's shut-in, computed in
+   * the worker. `time` (s) and `downhole` (Pa) are the shut-in samples only; their buffers
+   * are transferred (unusable here afterwards), so pass copies.
+   */
+  shutInDiagnostics(cycle: number, time: Float64Array, downhole: Float64Array, pumpingTime: number): Promise<ShutInArrays> {
+    const transfer = time.buffer === downhole.buffer ? [time.buffer] : [time.buffer, downhole.buffer];
+    return this.call<ShutInArrays>({ op: 'shut-in-diagnostics', cycle, time, downhole, pumpingTime }, transfer as ArrayBuffer[]);
   }
 
   dispose(): void {

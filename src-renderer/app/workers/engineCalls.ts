@@ -7,6 +7,7 @@ import { isEngineError } from '../../engine/errors';
 import { detectColumns, importTestFile, type TablePreview } from '../../engine/import/import-test-file';
 import type { TestRecord } from '../../engine/record';
 import type { WorkerRequest } from './protocol';
+import { shutInArrays } from './shutInArrays';
 
 /** What a full read of the file gave, for the confirmation screen. */
 export interface ParsedSummary {
@@ -55,5 +56,7 @@ export async function runEngineRequest(request: WorkerRequest): Promise<unknown>
       return analyzeRecord(request.record, request.options);
     case 'preview':
       return previewFile(request.bytes, request.fileName, request.options);
+    case 'shut-in-diagnostics':
+      return shutInArrays(request.time, request.downhole, request.pumpingTime);
   }
 }

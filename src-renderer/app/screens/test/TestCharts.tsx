@@ -1,4 +1,4 @@
-import { useEffect, useMemo, useState } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import { flushSync } from 'react-dom';
 import type { StoredSamples } from '../../../archive/api';
 import type { TestType } from '../../../engine/record';
@@ -10,13 +10,18 @@ import {
   cyclesOverlayOption, gFunctionChartOption, logLogChartOption, parsePickKey, placedPicks, sqrtTimeChartOption,
   stepRateChartOption, timeChartOption, timeChartPickSeries, volumeChartOption,
 } from '../../charts/options';
-import { hasShutIn, shutInDiagnostics } from '../../charts/shutInDiagnostics';
+import { hasShutIn, shutInSeriesOf, shutInSlice, type ShutInArrays } from '../../charts/shutInDiagnostics';
+import { useApp } from '../../context';
 import { fromDisplay } from '../../format/units';
 import { nearestIndex, nearestIndexUnsorted, pickRange } from '../../state/pickPlacement';
 import { withZoomSlider } from '../report/printChart';
 import type { PickEditRequest } from './PickDialog';
 
 type Tab = 'volume' | 'shutin' | 'steprate' | 'overlay';
+/** A cycle's shut-in arrays as computed in the analysis worker: on its way, done, or none to show. */
+type ShutInEntry = 'computing' | 'none' | ShutInArrays;
+/** The shut-in arrays of the record's cycles, valid for one time and downhole series. */
+interface ShutInCache { time: Float64Array; downhole: Float64Array; entries: Map<string, ShutInEntry> }
 const TARGET = 2400;
 
 /**
@@ -36,6 +41,7 @@ export function TestCharts({ samples, downhole: headerDownhole, correction, type
   analysis: AnalysisResult | null; units: UnitSystem; selected: string | null;
   onSelect: (key: string) => void; onDrop: (request: PickEditRequest) => void;
 }) {
+  const { engine } = useApp();
   const { time, pressure, rate, volume } = samples;
   // The series read with the test unless the analysis corrected the gauge otherwise.
   const downhole = analysis && analysis.hydrostaticCorrection !== correction ? analysis.downholePressure : headerDownhole;
@@ -86,11 +92,44 @@ export function TestCharts({ samples, downhole: headerDownhole, correction, type
   }, [recordOption, picks, units, printing]);
   const volumeOption = useMemo(() => (analysis && diagnosticsReady && shown === 'volume' ? volumeChartOption({ time, volume, downholePressure: downhole, cycles, units, target: TARGET }) : null),
     [analysis, diagnosticsReady, shown, time, volume, downhole, cycles, units]);
+  // The shut-in arrays (every shut-in sample) are computed in the analysis worker when the tab
+  // is shown, once per cycle and series: switching back to a cycle draws it at once.
+  const [shutInCache, setShutInCache] = useState<ShutInCache>(() => ({ time, downhole, entries: new Map() }));
+  // Keys asked of the worker for the current series (read and written in the effect only).
+  const shutInAsked = useRef<{ time: Float64Array; downhole: Float64Array; keys: Set<string> } | null>(null);
+  const shutInCycleAnalysis = useMemo(() => cycles.find((x) => x.cycle.index === shutInCycle && hasShutIn(x)) ?? null, [cycles, shutInCycle]);
+  const shutInKey = shutInCycleAnalysis ? `${shutInCycleAnalysis.cycle.index}:${shutInCycleAnalysis.cycle.pumpStart}:${shutInCycleAnalysis.cycle.pumpEnd}:${shutInCycleAnalysis.cycle.shutInEnd}` : null;
+  const wantShutIn = diagnosticsReady && shown === 'shutin';
+  useEffect(() => {
+    if (!wantShutIn || !shutInCycleAnalysis || !shutInKey) return;
+    if (!shutInAsked.current || shutInAsked.current.time !== time || shutInAsked.current.downhole !== downhole) {
+      shutInAsked.current = { time, downhole, keys: new Set() };
+    }
+    const asked = shutInAsked.current.keys;
+    if (asked.has(shutInKey)) return;
+    asked.add(shutInKey);
+    const current = shutInAsked.current;
+    // A reply for a series no longer shown (the analysis changed the downhole pressure) is dropped.
+    const settle = (entry: ShutInEntry) => shutInAsked.current === current && setShutInCache((prev) => {
+      const entries = new Map(prev.time === time && prev.downhole === downhole ? prev.entries : []);
+      entries.set(shutInKey, entry);
+      return { time, downhole, entries };
+    });
+    const slice = shutInSlice(time, downhole, shutInCycleAnalysis);
+    let request: Promise<ShutInArrays | null>;
+    try {
+      request = slice ? engine.shutInDiagnostics(shutInCycleAnalysis.cycle.index, slice.time, slice.downhole, slice.pumpingTime) : Promise.resolve(null);
+    } catch {
+      request = Promise.resolve(null);
+    }
+    request.then((arrays) => settle(arrays ?? 'none'), () => settle('none'));
+  }, [wantShutIn, shutInCycleAnalysis, shutInKey, engine, time, downhole]);
+  const shutInEntries = shutInCache.time === time && shutInCache.downhole === downhole ? shutInCache.entries : null;
+  const shutInEntry: ShutInEntry | undefined = wantShutIn && shutInKey ? (shutInEntries?.get(shutInKey) ?? 'computing') : undefined;
   const shutIn = useMemo(() => {
-    if (!diagnosticsReady || shown !== 'shutin') return null;
-    const c = cycles.find((x) => x.cycle.index === shutInCycle && hasShutIn(x));
-    try { return c ? shutInDiagnostics(time, downhole, c) : null; } catch { return null; }
-  }, [diagnosticsReady, shown, cycles, shutInCycle, time, downhole]);
+    if (!shutInCycleAnalysis || !shutInEntry || typeof shutInEntry !== 'object') return null;
+    try { return shutInSeriesOf(shutInEntry, shutInCycleAnalysis); } catch { return null; }
+  }, [shutInEntry, shutInCycleAnalysis]);
   const shutInOptions = useMemo(() => (shutIn ? {
     g: gFunctionChartOption(shutIn, units, 1200), sqrt: sqrtTimeChartOption(shutIn, units, 1200), log: logLogChartOption(shutIn, units, 1200),
   } : null), [shutIn, units]);
@@ -184,7 +223,9 @@ export function TestCharts({ samples, downhole: headerDownhole, correction, type
                   <ChartView option={shutInOptions.log} className="chart-box small" testId="chart-loglog" label="Log-log derivative plot" />
                   </div>
                 </div>
-              ) : <p className="hint">{diagnosticsReady ? 'This cycle has no shut-in long enough to diagnose.' : 'Preparing the shut-in diagnostics…'}</p>}
+              ) : !diagnosticsReady ? <p className="hint">Preparing the shut-in diagnostics…</p>
+                : shutInEntry === 'none' || !shutInCycleAnalysis ? <p className="hint">This cycle has no shut-in long enough to diagnose.</p>
+                  : <p className="hint" data-testid="shutin-computing" aria-busy="true">Computing diagnostics…</p>}
             </div>
           )}
           {analysis && shown === 'steprate' && (stepOption
