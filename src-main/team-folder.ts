@@ -3,10 +3,11 @@ import { watch as watchFolder, type FSWatcher } from 'node:fs';
 import { mkdir, open, readdir, readFile, rename, stat } from 'node:fs/promises';
 import { join } from 'node:path';
 import type { ArchiveEvent } from '../src-renderer/archive/events';
+import type { TeamJournalChanges, TeamRawRead } from '../src-renderer/bridge/types';
 import { journalKeyOf } from '../src-renderer/archive/journal/causality';
 import {
   eventHash, journalFileName, parseJournalFileName, readJournal, serializeEvent, startCursor,
-  type JournalCursor, type JournalIssue,
+  type JournalCursor,
 } from '../src-renderer/archive/journal/journal-file';
 
 /**
@@ -55,21 +56,11 @@ export interface PushOutcome {
   problem?: string;
 }
 
-/** New events of one journal since the last read. */
-export interface JournalDelta {
-  file: string;
-  events: ArchiveEvent[];
-  issues: JournalIssue[];
-  /** True when the journal was read again from the start (it shrank or was replaced). */
-  fromStart: boolean;
-  /** Bytes after the last newline not yet read (a write in progress, or a torn tail). */
-  unterminatedBytes: number;
-}
+/** New events of one journal since the last read (the bridge's type, so main and renderer share one shape). */
+export type JournalDelta = TeamJournalChanges;
 
-export type RawReadResult =
-  | { status: 'ok'; bytes: Uint8Array }
-  | { status: 'missing' }
-  | { status: 'damaged'; message: string };
+/** Result of reading a raw file by hash. */
+export type RawReadResult = TeamRawRead;
 
 interface ReadState { offset: number; cursor: JournalCursor; size: number; mtimeMs: number; ino: number }
 

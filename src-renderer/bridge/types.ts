@@ -1,4 +1,5 @@
 import type { ArchiveEvent } from '../archive/events';
+import type { JournalIssue } from '../archive/journal/journal-file';
 
 /**
  * The bridge between the renderer and the system. Electron's preload exposes one
@@ -59,7 +60,8 @@ export interface TeamPushResult {
 }
 
 /** A journal problem found while reading the folder (torn tail, broken chain ...). */
-export interface TeamJournalIssue { kind: string; file: string; line: number; column?: number; message: string }
+/** A problem found reading a journal (the journal reader's own issue type). */
+export type TeamJournalIssue = JournalIssue;
 
 /** New events of one journal file since the last read. */
 export interface TeamJournalChanges {

@@ -7,7 +7,7 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { runModelCommand } from '../../src-renderer/engine/cli/model-command';
+import { runModel } from './run-model';
 import { recordToDelimited } from '../../src-renderer/engine/synthetic/delimited-writer';
 import { densityLogToLas } from '../../src-renderer/engine/synthetic/las-writer';
 import { generateSyntheticTest } from '../../src-renderer/engine/synthetic/generate';
@@ -17,12 +17,6 @@ const GRADE_ORDER = 'ABCDE';
 let dir = '';
 const files: string[] = [];
 
-async function run(argv: string[]) {
-  let stdout = '';
-  let stderr = '';
-  const code = await runModelCommand(argv, { stdout: (s) => { stdout += s; }, stderr: (s) => { stderr += s; } });
-  return { code, stdout, stderr };
-}
 
 beforeAll(() => {
   dir = mkdtempSync(join(tmpdir(), 'stress-ledger-model-'));
@@ -45,7 +39,7 @@ afterAll(() => {
 
 describe('model command', () => {
   it('should print the contract JSON: tests, shminTrend and table with {value, unit} objects', async () => {
-    const { code, stdout } = await run(['model', ...files, '--step', '250m', '--from', '500m', '--to', '3000m', '--json']);
+    const { code, stdout } = await runModel(['model', ...files, '--step', '250m', '--from', '500m', '--to', '3000m', '--json']);
     expect(code).toBe(0);
     const doc = JSON.parse(stdout);
     expect(doc.caution).toMatch(/qualified engineer/);
@@ -79,7 +73,7 @@ describe('model command', () => {
   });
 
   it('should take every estimate with --min-grade E and use stated gradients', async () => {
-    const { code, stdout } = await run(['model', ...files, '--min-grade', 'E', '--pp', '0.465psi/ft', '--sv', '1.0psi/ft', '--json']);
+    const { code, stdout } = await runModel(['model', ...files, '--min-grade', 'E', '--pp', '0.465psi/ft', '--sv', '1.0psi/ft', '--json']);
     expect(code).toBe(0);
     const doc = JSON.parse(stdout);
     for (const t of doc.tests) expect(t.used).toBe(t.shmin?.kind === 'estimate');
@@ -89,7 +83,7 @@ describe('model command', () => {
   });
 
   it('should fit one line per depth interval with --breaks', async () => {
-    const { code, stdout } = await run(['model', ...files, '--min-grade', 'E', '--breaks', '1600m', '--json']);
+    const { code, stdout } = await runModel(['model', ...files, '--min-grade', 'E', '--breaks', '1600m', '--json']);
     expect(code).toBe(0);
     const doc = JSON.parse(stdout);
     // Estimates at 900, 1300, 1500 m above the break and 1700, 2100, 2500 m below it.
@@ -108,7 +102,7 @@ describe('model command', () => {
     const depth = Array.from({ length: 781 }, (_, i) => 100 + 5 * i);
     const las = join(dir, 'hf-density.las');
     writeFileSync(las, densityLogToLas({ depth, density: depth.map(() => 2300), well: 'HF-1', field: 'Harrow Flats' }));
-    const { code, stdout } = await run(['model', ...files, '--density-log', las, '--water-depth', '80m', '--rig-floor', '20m', '--step', '500m', '--to', '3000m', '--json']);
+    const { code, stdout } = await runModel(['model', ...files, '--density-log', las, '--water-depth', '80m', '--rig-floor', '20m', '--step', '500m', '--to', '3000m', '--json']);
     expect(code).toBe(0);
     const doc = JSON.parse(stdout);
     for (const r of doc.table) {
@@ -122,7 +116,7 @@ describe('model command', () => {
 
   it('should write a CSV export that reads back to the JSON table', async () => {
     const out = join(dir, 'table.csv');
-    const { code, stdout } = await run(['model', ...files, '--step', '500m', '--to', '3000m', '--format', 'csv', '--out', out, '--json']);
+    const { code, stdout } = await runModel(['model', ...files, '--step', '500m', '--to', '3000m', '--format', 'csv', '--out', out, '--json']);
     expect(code).toBe(0);
     const doc = JSON.parse(stdout);
     const text = readFileSync(out, 'utf8');
@@ -139,7 +133,7 @@ describe('model command', () => {
 
   it('should write an XLSX export in oilfield units', async () => {
     const out = join(dir, 'table.xlsx');
-    const { code, stdout } = await run(['model', ...files, '--step', '500m', '--to', '3000m', '--out', out, '--units', 'oilfield', '--json']);
+    const { code, stdout } = await runModel(['model', ...files, '--step', '500m', '--to', '3000m', '--out', out, '--units', 'oilfield', '--json']);
     expect(code).toBe(0);
     const doc = JSON.parse(stdout);
     const wb = new ExcelJS.Workbook();
@@ -153,7 +147,7 @@ describe('model command', () => {
   });
 
   it('should exit 1 and list the failed file when a file cannot be read', async () => {
-    const { code, stdout } = await run(['model', ...files.slice(0, 4), join(dir, 'missing.csv'), '--json']);
+    const { code, stdout } = await runModel(['model', ...files.slice(0, 4), join(dir, 'missing.csv'), '--json']);
     expect(code).toBe(1);
     const doc = JSON.parse(stdout);
     const missing = doc.tests.find((t: { file: string }) => t.file === 'missing.csv');
@@ -171,11 +165,11 @@ describe('model command', () => {
   });
 
   it('should exit 2 for bad arguments', async () => {
-    expect((await run(['model', ...files, '--min-grade', 'Q', '--json'])).code).toBe(2);
-    expect((await run(['model', ...files, '--format', 'pdf', '--out', 'x.pdf'])).code).toBe(2);
-    expect((await run(['model', ...files, '--step', '-5m'])).code).toBe(2);
-    expect((await run(['model', '--json'])).code).toBe(2);
-    const help = await run(['model', '--help']);
+    expect((await runModel(['model', ...files, '--min-grade', 'Q', '--json'])).code).toBe(2);
+    expect((await runModel(['model', ...files, '--format', 'pdf', '--out', 'x.pdf'])).code).toBe(2);
+    expect((await runModel(['model', ...files, '--step', '-5m'])).code).toBe(2);
+    expect((await runModel(['model', '--json'])).code).toBe(2);
+    const help = await runModel(['model', '--help']);
     expect(help.code).toBe(0);
     expect(help.stdout).toMatch(/--min-grade/);
   });
@@ -190,7 +184,7 @@ describe('model command inputs besides the tests', () => {
   const mdOnHold = (tvd: number) => 1325 + (tvd - tvdEndOfBuild) / Math.cos((35 * Math.PI) / 180);
 
   it('should add the MD column of the surveyed well with --survey and --well', async () => {
-    const { code, stdout } = await run(['model', ...files, '--survey', SURVEY, '--well', 'HF-3', '--step', '250m', '--to', '3000m', '--json']);
+    const { code, stdout } = await runModel(['model', ...files, '--survey', SURVEY, '--well', 'HF-3', '--step', '250m', '--to', '3000m', '--json']);
     expect(code).toBe(0);
     const doc = JSON.parse(stdout);
     expect(doc.settings.survey).toMatchObject({ file: 'HF-3_survey.csv', well: 'HF-3', from: 'option', stations: 134 });
@@ -209,7 +203,7 @@ describe('model command inputs besides the tests', () => {
     for (let md = 0; md <= 4000; md += 10) lines.push(`${md} 2.3`);
     const las = join(dir, 'hf-3-md-density.las');
     writeFileSync(las, lines.join('\n'));
-    const { code, stdout } = await run(['model', ...files, '--survey', SURVEY, '--density-log', las, '--step', '500m', '--to', '3000m', '--json']);
+    const { code, stdout } = await runModel(['model', ...files, '--survey', SURVEY, '--density-log', las, '--step', '500m', '--to', '3000m', '--json']);
     expect(code).toBe(0);
     const doc = JSON.parse(stdout);
     expect(doc.provenance.join(' ')).toMatch(/converted to TVD with the well survey/);
@@ -221,7 +215,7 @@ describe('model command inputs besides the tests', () => {
     const depth = Array.from({ length: 701 }, (_, i) => 5 * i);
     const las = join(dir, 'hf-3-density.las');
     writeFileSync(las, densityLogToLas({ depth, density: depth.map(() => 2200), well: 'HF-3', field: 'Harrow Flats' }));
-    const { code, stdout, stderr } = await run(['model', ...files, SURVEY, las, '--step', '500m', '--to', '3000m', '--json']);
+    const { code, stdout, stderr } = await runModel(['model', ...files, SURVEY, las, '--step', '500m', '--to', '3000m', '--json']);
     expect(code).toBe(0);
     expect(stderr).toMatch(/HF-3_survey\.csv is a directional survey, not a test/);
     expect(stderr).toMatch(/hf-3-density\.las is a depth log, not a test/);
@@ -241,7 +235,7 @@ describe('model command inputs besides the tests', () => {
   it('should exit 1 and list a survey among the FILEs whose MD does not increase', async () => {
     const bad = join(dir, 'bad-survey.csv');
     writeFileSync(bad, 'Well,HF-3\nMD (m),Inclination (deg),Azimuth (deg)\n0,0,0\n100,1,10\n90,2,10\n');
-    const { code, stdout } = await run(['model', ...files, bad, '--json']);
+    const { code, stdout } = await runModel(['model', ...files, bad, '--json']);
     expect(code).toBe(1);
     const doc = JSON.parse(stdout);
     expect(doc.inputs[0]).toMatchObject({ file: 'bad-survey.csv', role: 'survey', used: false, error: { code: 'bad-survey', file: 'bad-survey.csv', line: 5, column: 1 } });
@@ -251,7 +245,7 @@ describe('model command inputs besides the tests', () => {
     // Truth set here: HF-1 overpressured, 10.5 MPa at 1000 m and 23.0 MPa at 2000 m TVD (3.0 MPa at 300 m for HF-2).
     const pp = join(dir, 'pp-points.csv');
     writeFileSync(pp, 'Field,Harrow Flats\n\nWell;TVD (ft);Pp (MPa)\n'.replace(/,/g, ';') + 'HF-1;3280,84;10,5\nHF-1;6561,68;23\nHF-2;984,252;3\n');
-    const { code, stdout } = await run(['model', ...files, '--pp-points', pp, '--well', 'HF-1', '--step', '500m', '--to', '3000m', '--json']);
+    const { code, stdout } = await runModel(['model', ...files, '--pp-points', pp, '--well', 'HF-1', '--step', '500m', '--to', '3000m', '--json']);
     expect(code).toBe(0);
     const doc = JSON.parse(stdout);
     expect(doc.settings.porePressureSource).toBe('measurements');
@@ -263,7 +257,7 @@ describe('model command inputs besides the tests', () => {
     // Below the deepest point: 23 MPa + 10 kPa/m (the hydrostatic default, common practice).
     expect(at(3000)).toBeCloseTo(33, 3);
     // Several wells in the file and none chosen: bad arguments.
-    expect((await run(['model', ...files, '--pp-points', pp, '--json'])).code).toBe(2);
+    expect((await runModel(['model', ...files, '--pp-points', pp, '--json'])).code).toBe(2);
   });
 
   it('should exit 0 with only the JSON on stdout when run as a program with a survey among the FILEs', () => {
@@ -276,14 +270,14 @@ describe('model command inputs besides the tests', () => {
   });
 
   it('should print the MD column in the text summary', async () => {
-    const { code, stdout } = await run(['model', ...files, '--survey', SURVEY, '--step', '500m', '--to', '3000m']);
+    const { code, stdout } = await runModel(['model', ...files, '--survey', SURVEY, '--step', '500m', '--to', '3000m']);
     expect(code).toBe(0);
     expect(stdout).toMatch(/TVD m\s+MD m/);
     expect(stdout).toMatch(/^\s+500\s+500\.0\s/m);
   });
 
   it('should document the survey, well and pore-pressure options in --help', async () => {
-    const help = await run(['model', '--help']);
+    const help = await runModel(['model', '--help']);
     for (const word of ['--survey FILE', '--well NAME', '--pp-points FILE', 'density log']) expect(help.stdout).toContain(word);
   });
 });

@@ -6,7 +6,7 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { runModelCommand } from '../../src-renderer/engine/cli/model-command';
+import { runModel } from './run-model';
 import { recordToDelimited } from '../../src-renderer/engine/synthetic/delimited-writer';
 import { generateSyntheticTest } from '../../src-renderer/engine/synthetic/generate';
 
@@ -16,12 +16,6 @@ const files: string[] = [];
 const SHALE = { name: 'Ashgrove Shale', intercept: 1e6, gradient: 16_500, depths: [800, 1000, 1200, 1400] };
 const SAND = { name: 'Millrace Sandstone', intercept: 4e6, gradient: 15_000, depths: [1900, 2200, 2500, 2800] };
 
-async function run(argv: string[]) {
-  let stdout = '';
-  let stderr = '';
-  const code = await runModelCommand(argv, { stdout: (s) => { stdout += s; }, stderr: (s) => { stderr += s; } });
-  return { code, stdout, stderr };
-}
 
 beforeAll(() => {
   dir = mkdtempSync(join(tmpdir(), 'stress-ledger-formation-'));
@@ -46,7 +40,7 @@ afterAll(() => {
 
 describe('model command by formation', () => {
   it('should fit one Shmin line per formation named in the files and state the unnamed group', async () => {
-    const { code, stdout, stderr } = await run(['model', ...files, '--min-grade', 'E', '--by-formation', '--step', '100m', '--json']);
+    const { code, stdout, stderr } = await runModel(['model', ...files, '--min-grade', 'E', '--by-formation', '--step', '100m', '--json']);
     expect(code).toBe(0);
     const doc = JSON.parse(stdout);
     expect(doc.settings.byFormation).toBe(true);
@@ -71,7 +65,7 @@ describe('model command by formation', () => {
 
   it('should state the trend line of each row in the CSV export', async () => {
     const out = join(dir, 'by-formation.csv');
-    const { code } = await run(['model', ...files, '--min-grade', 'E', '--by-formation', '--step', '500m', '--out', out]);
+    const { code } = await runModel(['model', ...files, '--min-grade', 'E', '--by-formation', '--step', '500m', '--out', out]);
     expect(code).toBe(0);
     const text = readFileSync(out, 'utf8');
     expect(text).toMatch(/qualified engineer/);
@@ -86,7 +80,7 @@ describe('model command by formation', () => {
   });
 
   it('should refuse --by-formation together with --breaks', async () => {
-    const { code, stderr } = await run(['model', ...files, '--by-formation', '--breaks', '1600m']);
+    const { code, stderr } = await runModel(['model', ...files, '--by-formation', '--breaks', '1600m']);
     expect(code).toBe(2);
     expect(stderr).toMatch(/--by-formation and --breaks/);
   });
